@@ -1,0 +1,1 @@
+export { TeamScreen as default } from '@/features/team/team-screen';

@@ -1,0 +1,29 @@
+import type { Href } from 'expo-router';
+import { allows, type Permission } from '../../shared/policy';
+import type { UserView } from '../../shared/schemas/auth';
+
+export interface NavItem {
+  href: Href;
+  /** Path prefix that marks this item active. */
+  match: string;
+  label: string;
+  symbol: string;
+  permission: Permission;
+  /** Shown in the phone's bottom bar; the rest live under "More". */
+  primary: boolean;
+}
+
+export const NAV_ITEMS: NavItem[] = [
+  { href: '/', match: '/', label: 'Search', symbol: '⌕', permission: 'search.read', primary: true },
+  { href: '/team', match: '/team', label: 'Team', symbol: '☰', permission: 'users.manage', primary: false },
+  { href: '/outbox', match: '/outbox', label: 'Outbox', symbol: '✉', permission: 'outbox.read', primary: false },
+  { href: '/account', match: '/account', label: 'Account', symbol: '◉', permission: 'auth.self', primary: true },
+];
+
+export function navFor(user: UserView): NavItem[] {
+  return NAV_ITEMS.filter((item) => allows(user, item.permission));
+}
+
+export function isActive(item: NavItem, pathname: string): boolean {
+  return item.match === '/' ? pathname === '/' : pathname === item.match || pathname.startsWith(item.match + '/');
+}

@@ -1,0 +1,64 @@
+import { View } from 'react-native';
+import type { ColourName } from '../theme/tokens';
+import { useTheme } from '../theme/use-theme';
+import { Text } from './text';
+
+/** A status word with a symbol; colour is never the only signal. */
+export function Badge({ label, symbol, tone = 'slate' }: { label: string; symbol?: string; tone?: ColourName }) {
+  const t = useTheme();
+  return (
+    <View
+      style={{
+        flexDirection: 'row',
+        alignItems: 'center',
+        gap: 4,
+        paddingHorizontal: t.space.sm,
+        paddingVertical: 2,
+        borderRadius: t.radius.pill,
+        borderWidth: 1,
+        borderColor: t.colour[tone],
+        alignSelf: 'flex-start',
+      }}
+    >
+      {symbol ? <Text variant="caption" tone={tone} aria-hidden>{symbol}</Text> : null}
+      <Text variant="caption" weight="semibold" tone={tone}>
+        {label}
+      </Text>
+    </View>
+  );
+}
+
+/** Trouble codes and readings in a monospace chip so they scan at a glance. */
+export function CodeChip({ code, onRemove }: { code: string; onRemove?: () => void }) {
+  const t = useTheme();
+  return (
+    <View style={{ flexDirection: 'row', alignItems: 'center', backgroundColor: t.colour.sand, borderRadius: t.radius.sm, paddingHorizontal: t.space.sm, paddingVertical: 2, gap: 4 }}>
+      <Text mono variant="small" weight="semibold">
+        {code}
+      </Text>
+      {onRemove ? (
+        <Text variant="small" tone="slate" role="button" accessibilityLabel={`Remove ${code}`} onPress={onRemove} style={{ paddingHorizontal: 4 }}>
+          ✕
+        </Text>
+      ) : null}
+    </View>
+  );
+}
+
+/** Caution for work that can hurt someone: the word, an icon and amber, and the deferral. */
+export function Caution({ children }: { children: string }) {
+  const t = useTheme();
+  return (
+    <View role="note" style={{ flexDirection: 'row', gap: t.space.sm, padding: t.space.md, borderRadius: t.radius.md, borderLeftWidth: 4, borderColor: t.colour.amber, backgroundColor: t.colour.amberFill }}>
+      <Text aria-hidden tone="amber" weight="bold">
+        ⚠
+      </Text>
+      <Text style={{ flex: 1 }}>
+        <Text weight="bold" tone="amber">
+          Caution:{' '}
+        </Text>
+        {children} Follow the manufacturer&apos;s procedure and your shop&apos;s safety rules.
+      </Text>
+    </View>
+  );
+}

@@ -1,0 +1,73 @@
+// The one place that reads process.env. Everything else receives a Config.
+import path from 'node:path';
+import { z } from 'zod';
+import pkg from '../package.json' with { type: 'json' };
+
+// drizzle-kit loads this file as CommonJS, where import.meta is empty; it always runs from the repo root.
+const root = import.meta.dirname ? path.resolve(import.meta.dirname, '..') : process.cwd();
+
+const flag = z
+  .enum(['1', '0', 'true', 'false', 'yes', 'no'])
+  .transform((v) => v === '1' || v === 'true' || v === 'yes');
+
+const configSchema = z.object({
+  NODE_ENV: z.enum(['development', 'production', 'test']).default('development'),
+  HOST: z.string().default('127.0.0.1'),
+  PORT: z.coerce.number().int().min(1).max(65535).default(8080),
+  PUBLIC_URL: z.url().optional(),
+  DATA_DIR: z.string().default(path.join(root, '.data')),
+  DB_HOST: z.string().default('127.0.0.1'),
+  DB_PORT: z.coerce.number().int().min(1).max(65535).default(3391),
+  DB_NAME: z.string().regex(/^[a-z0-9_]+$/, 'lower-case letters, digits and _ only').default('causeway'),
+  DB_USER: z.string().default('app'),
+  DB_PASSWORD: z.string().default('causeway-local'),
+  SESSION_SECRET: z.string().min(32).optional(),
+  SESSION_IDLE_MINUTES: z.coerce.number().int().positive().default(120),
+  SESSION_ABSOLUTE_HOURS: z.coerce.number().int().positive().default(12),
+  COOKIE_SECURE: flag.default(false),
+  SMTP_HOST: z.string().default('127.0.0.1'),
+  SMTP_PORT: z.coerce.number().int().min(1).max(65535).default(1025),
+  MAIL_WEB_PORT: z.coerce.number().int().min(1).max(65535).default(1080),
+  MAIL_FROM: z.string().default('Causeway <causeway@causeway.test>'),
+  DEMO_MODE: flag.default(true),
+  LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
+  DIGEST_CRON: z.string().default('0 7 * * 1'),
+  AUTH_LIMIT_PER_ADDRESS: z.coerce.number().int().positive().default(60),
+});
+
+export type Config = ReturnType<typeof loadConfig>;
+
+export function loadConfig(env: NodeJS.ProcessEnv = process.env) {
+  const parsed = configSchema.safeParse(env);
+  if (!parsed.success) {
+    const lines = parsed.error.issues.map((i) => `  ${i.path.join('.')}: ${i.message}`);
+    throw new Error(`Invalid configuration:\n${lines.join('\n')}`);
+  }
+  const c = parsed.data;
+  const dataDir = path.resolve(c.DATA_DIR);
+  return {
+    env: c.NODE_ENV,
+    root,
+    host: c.HOST,
+    port: c.PORT,
+    publicUrl: c.PUBLIC_URL ?? `http://${c.HOST}:${c.PORT}`,
+    dataDir,
+    uploadDir: path.join(dataDir, 'uploads'),
+    webDist: path.join(root, 'dist'),
+    /** npm run dev: pages come from Expo's dev server instead of dist/. */
+    webDevServer: undefined as string | undefined,
+    db: { host: c.DB_HOST, port: c.DB_PORT, database: c.DB_NAME, user: c.DB_USER, password: c.DB_PASSWORD },
+    session: {
+      secret: c.SESSION_SECRET,
+      idleMinutes: c.SESSION_IDLE_MINUTES,
+      absoluteHours: c.SESSION_ABSOLUTE_HOURS,
+      secureCookie: c.COOKIE_SECURE,
+    },
+    mail: { host: c.SMTP_HOST, port: c.SMTP_PORT, webPort: c.MAIL_WEB_PORT, from: c.MAIL_FROM },
+    demoMode: c.DEMO_MODE,
+    logLevel: c.LOG_LEVEL,
+    digestCron: c.DIGEST_CRON,
+    limits: { authPerAddress: c.AUTH_LIMIT_PER_ADDRESS, jsonBody: '1mb' },
+    version: pkg.version,
+  };
+}

@@ -1,0 +1,53 @@
+// Runs Causeway's server: connects, migrates, listens, and shuts down gracefully.
+import { randomBytes } from 'node:crypto';
+import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
+import type { Server } from 'node:http';
+import path from 'node:path';
+import pino from 'pino';
+import { applyMigrations, connect } from '../db/client';
+import { createApp } from './app';
+import type { Config } from './config';
+import type { AppContext } from './context';
+import { createMailer } from './mail/mailer';
+
+/** The configured secret, or one generated once and kept under .data/ so sessions survive restarts. */
+export function sessionSecret(config: Config): string {
+  if (config.session.secret) return config.session.secret;
+  const file = path.join(config.dataDir, 'session-secret');
+  if (!existsSync(file)) {
+    mkdirSync(config.dataDir, { recursive: true });
+    writeFileSync(file, randomBytes(48).toString('base64url'), { mode: 0o600 });
+  }
+  return readFileSync(file, 'utf8').trim();
+}
+
+export interface RunningServer {
+  server: Server;
+  ctx: AppContext;
+  url: string;
+  stop(): Promise<void>;
+}
+
+export async function startServer(config: Config): Promise<RunningServer> {
+  const log = pino({ level: config.logLevel, base: { app: 'causeway' } });
+  const database = connect(config.db);
+  await applyMigrations(database.db);
+  const ctx: AppContext = { db: database.db, config, mailer: createMailer(config), log };
+  const app = createApp({ ctx, pool: database.pool, sessionSecret: sessionSecret(config) });
+  const server = await new Promise<Server>((resolve, reject) => {
+    const s = app.listen(config.port, config.host, () => resolve(s));
+    s.on('error', reject);
+  });
+  const address = server.address();
+  const port = typeof address === 'object' && address ? address.port : config.port;
+  let stopping: Promise<void> | null = null;
+  const stop = () =>
+    (stopping ??= new Promise<void>((resolve) => {
+      // close() waits for in-flight requests; idle keep-alive sockets are closed at once.
+      server.close(() => resolve());
+      server.closeIdleConnections();
+    })
+      .then(() => app.shutdown())
+      .then(() => database.close()));
+  return { server, ctx, url: `http://${config.host}:${port}`, stop };
+}

@@ -1,0 +1,42 @@
+// Demo-mode Outbox: the messages the local catcher holds for this shop's people.
+import { Router } from 'express';
+import { eq } from 'drizzle-orm';
+import { z } from 'zod';
+import { users } from '../../db/schema';
+import type { AppContext } from '../context';
+import { HttpError, notFound } from '../http/errors';
+import { can } from '../http/guard';
+
+const caughtSchema = z.array(
+  z.object({
+    id: z.string(),
+    subject: z.string().default(''),
+    date: z.string().optional(),
+    time: z.string().optional(),
+    to: z.array(z.object({ address: z.string(), name: z.string().optional() })).default([]),
+    text: z.string().optional(),
+    html: z.string().optional(),
+  }).loose(),
+);
+
+export async function fetchCaughtMail(ctx: AppContext) {
+  const url = `http://${ctx.config.mail.host}:${ctx.config.mail.webPort}/api/email`;
+  const res = await fetch(url, { signal: AbortSignal.timeout(3000) }).catch(() => null);
+  if (!res?.ok) throw new HttpError(503, 'mail_catcher_down', 'The local mail catcher is not answering. Restart with npm start.');
+  return caughtSchema.parse(await res.json());
+}
+
+export function outboxRoutes(ctx: AppContext) {
+  const r = Router();
+  r.get('/outbox', can('outbox.read'), async (req, res, next) => {
+    if (!ctx.config.demoMode) return next(notFound('The Outbox'));
+    const people = await ctx.db.select({ email: users.email }).from(users).where(eq(users.shopId, req.user!.shopId));
+    const ours = new Set(people.map((p) => p.email.toLowerCase()));
+    const messages = (await fetchCaughtMail(ctx))
+      .filter((m) => m.to.some((t) => ours.has(t.address.toLowerCase())))
+      .map((m) => ({ id: m.id, subject: m.subject, to: m.to.map((t) => t.address), date: m.date ?? m.time ?? null, text: m.text ?? '' }))
+      .sort((a, b) => String(b.date).localeCompare(String(a.date)));
+    res.json({ messages });
+  });
+  return r;
+}

@@ -1,0 +1,43 @@
+export { WalkError, TreeError, type WalkErrorCode } from './errors';
+export {
+  codeMatches,
+  emptyEvidence,
+  misfirePatterns,
+  misfiringCylinders,
+  normaliseCode,
+  normalisePlatformValue,
+  normaliseTag,
+  FUELS,
+  INDUCTIONS,
+  LAYOUTS,
+  MISFIRE_PATTERNS,
+  type MisfirePattern,
+  type WalkEvidence,
+  type WalkPlatform,
+} from './evidence';
+export {
+  causeSchema,
+  conditionSchema,
+  globalCauseId,
+  listCauses,
+  parseTree,
+  specSchema,
+  treeSchema,
+  SCOPES,
+  SYSTEMS,
+  type Cause,
+  type Condition,
+  type Scope,
+  type System,
+  type Tree,
+  type TreeCause,
+  type TreeSpec,
+} from './tree-schema';
+export { conditionHolds } from './conditions';
+export { selectTrees, SELECT_POINTS, type TreeMatch } from './select';
+export { priorsFor, SCOPE_RULES, type CaseId, type CaseRef, type CausePrior, type TestInstructions } from './priors';
+export { learnFromCases, DEFAULT_STRENGTH, type ConfirmedCase, type LearnOptions } from './learn';
+export { compareByRatio, expectedCost, expectedMinutes, orderSteps, type ExpectedMinutes, type Orderable, type StepState } from './order';
+export { markStep, refreshWalk, startWalk, type StartOptions, type Step, type StepMark, type StepOutcome, type Walk } from './walk';
+export { measurementSchema, stepMarkSchema, walkCreateSchema, walkStateSchema, type StepMarkInput, type WalkCreate } from './api-schemas';
+export { buildWriteUp } from './write-up';

@@ -1,0 +1,73 @@
+import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
+import type { Browser } from 'playwright-core';
+import { DEMO_PASSWORD, readDemoShop } from '../../server/seed/demo-files';
+import { launchBrowser, openPage, screenshot, signInThroughUi, VIEWPORTS, type ViewportName } from '../support/browser';
+
+const baseUrl = inject('baseUrl');
+const demo = readDemoShop(new URL('../../content', import.meta.url).pathname);
+const person = (role: string) => demo.users.find((u) => u.role === role)!;
+
+let browser: Browser;
+beforeAll(async () => {
+  browser = await launchBrowser();
+});
+afterAll(() => browser?.close());
+
+describe.each(Object.keys(VIEWPORTS) as ViewportName[])('signed-in shell at %s size', (viewport) => {
+  it('shows the sign-in page with no console errors or CSP violations', async () => {
+    const { page, problems, context } = await openPage(browser, viewport, baseUrl);
+    await page.goto('/');
+    await page.getByRole('button', { name: 'Sign in' }).waitFor();
+    expect(page.url()).toMatch(/\/sign-in$/);
+    await screenshot(page, `sign-in-${viewport}`);
+    expect(problems).toEqual([]);
+    await context.close();
+  });
+
+  it('refuses a wrong password with the generic message', async () => {
+    const { page, context } = await openPage(browser, viewport, baseUrl);
+    await signInThroughUi(page, person('technician').email, 'not the right one');
+    await page.getByText('That e-mail and password do not match an active account.').waitFor();
+    expect(page.url()).toMatch(/\/sign-in$/);
+    await context.close();
+  });
+
+  for (const role of ['apprentice', 'technician', 'senior', 'manager'] as const) {
+    it(`signs in as ${role} and shows the shell for that role`, async () => {
+      const { page, problems, context } = await openPage(browser, viewport, baseUrl);
+      await signInThroughUi(page, person(role).email, DEMO_PASSWORD);
+      const nav = page.getByRole('navigation', { name: 'Main' });
+      await nav.waitFor();
+      await nav.getByText('Search').waitFor();
+      if (viewport === 'wide') {
+        // managers see the team and outbox in the side navigation; nobody else does
+        expect(await nav.getByText('Team').count()).toBe(role === 'manager' ? 1 : 0);
+        expect(await nav.getByText('Outbox').count()).toBe(role === 'manager' ? 1 : 0);
+        await nav.getByText(person(role).name).waitFor();
+      }
+      await screenshot(page, `home-${role}-${viewport}`);
+      if (role === 'manager') {
+        await page.goto('/team');
+        await page.getByText('Invite someone').waitFor();
+        await page.getByText(person('apprentice').email).waitFor();
+        await screenshot(page, `team-${viewport}`);
+        await page.goto('/outbox');
+        await page.getByRole('heading', { name: 'Outbox' }).waitFor();
+        await screenshot(page, `outbox-${viewport}`);
+      }
+      await page.goto('/account');
+      await page.getByRole('button', { name: 'Sign out' }).click();
+      await page.getByRole('button', { name: 'Sign in' }).waitFor();
+      expect(problems).toEqual([]);
+      await context.close();
+    });
+  }
+
+  it('shows the not-found page for an unknown path', async () => {
+    const { page, context } = await openPage(browser, viewport, baseUrl);
+    await page.goto('/no/such/page');
+    await page.getByText('No page here').waitFor();
+    await context.close();
+  });
+});
+

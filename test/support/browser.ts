@@ -1,0 +1,69 @@
+// Debian's Chromium driven by playwright-core (never a downloaded browser).
+import { mkdirSync } from 'node:fs';
+import path from 'node:path';
+import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
+
+export const VIEWPORTS = { phone: { width: 390, height: 844 }, wide: { width: 1280, height: 800 } } as const;
+export type ViewportName = keyof typeof VIEWPORTS;
+
+export const SCREENSHOT_DIR = path.resolve(import.meta.dirname, '../../test-results/screenshots');
+
+export async function launchBrowser(): Promise<Browser> {
+  // playwright gives every launch a fresh, empty profile of its own.
+  return chromium.launch({
+    executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
+    args: [
+      '--headless',
+      '--no-sandbox',
+      '--disable-gpu',
+      '--disable-quic',
+      '--no-first-run',
+      '--disable-background-networking',
+      '--disable-component-update',
+      '--disable-sync',
+    ],
+  });
+}
+
+export interface WatchedPage {
+  page: Page;
+  context: BrowserContext;
+  /** Console errors, page errors, dialogs and CSP violations seen so far. */
+  problems: string[];
+}
+
+/** A fresh page that records anything a user should never see: errors, dialogs, CSP reports. */
+export async function openPage(browser: Browser, viewport: ViewportName, baseURL: string): Promise<WatchedPage> {
+  const context = await browser.newContext({ viewport: VIEWPORTS[viewport], baseURL, deviceScaleFactor: 1 });
+  const page = await context.newPage();
+  const problems: string[] = [];
+  page.on('console', (msg) => {
+    if (msg.type() !== 'error') return;
+    // Asking "who am I?" while signed out answers 401 by contract; the browser logs it.
+    const expected401 = msg.text().includes('status of 401') && msg.location().url.endsWith('/api/auth/me');
+    if (!expected401) problems.push(`console: ${msg.text()} (${msg.location().url})`);
+  });
+  page.on('pageerror', (err) => problems.push(`pageerror: ${err.message}`));
+  page.on('dialog', async (d) => {
+    problems.push(`dialog: ${d.message()}`);
+    await d.dismiss();
+  });
+  await page.addInitScript(() => {
+    document.addEventListener('securitypolicyviolation', (e) => console.error(`CSP violation: ${e.violatedDirective} ${e.blockedURI}`));
+  });
+  return { page, context, problems };
+}
+
+export async function screenshot(page: Page, name: string) {
+  mkdirSync(SCREENSHOT_DIR, { recursive: true });
+  const file = path.join(SCREENSHOT_DIR, `${name}.png`);
+  await page.screenshot({ path: file, fullPage: false });
+  return file;
+}
+
+export async function signInThroughUi(page: Page, email: string, password: string) {
+  await page.goto('/sign-in');
+  await page.getByLabel('E-mail').fill(email);
+  await page.getByLabel('Password').fill(password);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+}
