@@ -40,6 +40,8 @@ export const users = mysqlTable(
     shopId: ref('shop_id').notNull().references(() => shops.id),
     name: varchar('name', { length: 120 }).notNull(),
     email: varchar('email', { length: 254 }).notNull(),
+    /** Short name used by case files in content/ (e.g. "senior"); optional. */
+    handle: varchar('handle', { length: 40 }),
     role: mysqlEnum('role', roles).notNull(),
     passwordHash: varchar('password_hash', { length: 255 }),
     disabled: boolean('disabled').notNull().default(false),
@@ -48,7 +50,7 @@ export const users = mysqlTable(
     passwordChangedAt: datetime('password_changed_at', { fsp: 3 }),
     createdAt: createdAt(),
   },
-  (t) => [uniqueIndex('users_email').on(t.email), index('users_shop').on(t.shopId)],
+  (t) => [uniqueIndex('users_email').on(t.email), index('users_shop').on(t.shopId), uniqueIndex('users_shop_handle').on(t.shopId, t.handle)],
 );
 
 /** One-time tokens for invites and password resets; only the SHA-256 of the token is stored. */
@@ -236,3 +238,51 @@ export const appMeta = mysqlTable('app_meta', {
   value: text('value').notNull(),
   updatedAt: datetime('updated_at', { fsp: 3 }).notNull().default(sql`CURRENT_TIMESTAMP(3)`),
 });
+
+/** A tech's cause walk: the evidence it started from and the walk state (shared/walk) as JSON. */
+export const walks = mysqlTable(
+  'walks',
+  {
+    id: id(),
+    shopId: ref('shop_id').notNull().references(() => shops.id),
+    userId: ref('user_id').notNull().references(() => users.id),
+    platformId: ref('platform_id').references(() => platforms.id),
+    treeId: varchar('tree_id', { length: 60 }).notNull(),
+    evidence: json('evidence').$type<Record<string, unknown>>().notNull(),
+    state: json('state').$type<Record<string, unknown>>().notNull(),
+    status: mysqlEnum('status', ['open', 'finished']).notNull().default('open'),
+    caseId: ref('case_id').references(() => cases.id),
+    version: int('version').notNull().default(1),
+    createdAt: createdAt(),
+    updatedAt: datetime('updated_at', { fsp: 3 }).notNull().default(sql`CURRENT_TIMESTAMP(3)`),
+  },
+  (t) => [index('walks_shop_user').on(t.shopId, t.userId, t.updatedAt)],
+);
+
+/** A shop's own edit of a cause tree; it replaces the tree of the same id from content/trees. */
+export const causeTrees = mysqlTable(
+  'cause_trees',
+  {
+    id: id(),
+    shopId: ref('shop_id').notNull().references(() => shops.id),
+    treeId: varchar('tree_id', { length: 60 }).notNull(),
+    definition: json('definition').$type<Record<string, unknown>>().notNull(),
+    updatedById: ref('updated_by_id').notNull().references(() => users.id),
+    updatedAt: datetime('updated_at', { fsp: 3 }).notNull().default(sql`CURRENT_TIMESTAMP(3)`),
+  },
+  (t) => [uniqueIndex('cause_trees_shop_tree').on(t.shopId, t.treeId)],
+);
+
+/** Each digest e-mail sent, so the weekly scheduler never sends twice across instances. */
+export const digestRuns = mysqlTable(
+  'digest_runs',
+  {
+    id: id(),
+    shopId: ref('shop_id').notNull().references(() => shops.id),
+    periodKey: varchar('period_key', { length: 20 }).notNull(),
+    kind: mysqlEnum('kind', ['scheduled', 'manual']).notNull(),
+    recipients: int('recipients').notNull(),
+    createdAt: createdAt(),
+  },
+  (t) => [index('digest_runs_shop').on(t.shopId, t.createdAt)],
+);

@@ -9,12 +9,21 @@ import helmet from 'helmet';
 import { pinoHttp } from 'pino-http';
 import type { Pool } from 'mysql2/promise';
 import { authRoutes } from './auth/routes';
+import { caseRoutes } from './cases/routes';
 import { csrfProtection, installSessions } from './auth/session';
 import type { AppContext } from './context';
 import { errorHandler, notFoundHandler } from './http/errors';
 import { healthRoutes } from './health/routes';
 import { outboxRoutes } from './mail/outbox';
+import { patternRoutes } from './patterns/routes';
+import { vehicleRoutes } from './vehicles/routes';
 import { userRoutes } from './users/routes';
+import { searchRoutes } from './search/routes';
+import { walkRoutes } from './walks/routes';
+import { treeRoutes } from './trees/routes';
+import { codeRoutes, vinRoutes } from './codes/routes';
+import { platformRoutes } from './platforms/routes';
+import { scanReportRoutes } from './scan-reports/routes';
 
 export interface AppOptions {
   ctx: AppContext;
@@ -48,7 +57,22 @@ const devContentSecurityPolicy = {
 
 /** The API routers, in one list so the policy test can walk every route. */
 export function apiRouters(ctx: AppContext) {
-  return [healthRoutes(ctx), authRoutes(ctx), userRoutes(ctx), outboxRoutes(ctx)];
+  return [
+    healthRoutes(ctx),
+    authRoutes(ctx),
+    userRoutes(ctx),
+    outboxRoutes(ctx),
+    searchRoutes(ctx),
+    caseRoutes(ctx),
+    walkRoutes(ctx),
+    treeRoutes(ctx),
+    codeRoutes(ctx),
+    vinRoutes(ctx),
+    platformRoutes(ctx),
+    scanReportRoutes(ctx),
+    patternRoutes(ctx),
+    vehicleRoutes(ctx),
+  ];
 }
 
 /** The Express app plus shutdown(), which stops the timers its parts keep (session expiry). */

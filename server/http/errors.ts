@@ -41,7 +41,22 @@ interface BodyParserError {
   expose?: boolean;
 }
 
-function fromBodyParser(err: BodyParserError): HttpError | null {
+const MULTER_MESSAGES: Record<string, [number, string]> = {
+  LIMIT_FILE_SIZE: [413, 'Files can be at most 15 MB.'],
+  LIMIT_FILE_COUNT: [400, 'Send one file at a time.'],
+  LIMIT_UNEXPECTED_FILE: [400, 'Send the file in the multipart field "file".'],
+  LIMIT_PART_COUNT: [400, 'Too many parts in the upload.'],
+  LIMIT_FIELD_COUNT: [400, 'Too many fields in the upload.'],
+};
+
+function fromBodyParser(err: BodyParserError & { name?: string; code?: string; message?: string }): HttpError | null {
+  if (err.name === 'MulterError' && err.code) {
+    const [status, message] = MULTER_MESSAGES[err.code] ?? [400, 'The upload could not be read.'];
+    return new HttpError(status, status === 413 ? 'too_large' : 'bad_upload', message);
+  }
+  // busboy: a multipart body that is cut short or malformed
+  if (typeof err.message === 'string' && /Multipart|Unexpected end of form|Malformed part header/i.test(err.message))
+    return badRequest('The upload was cut short or malformed. Try again.');
   if (err.type === 'entity.parse.failed') return badRequest('The request body is not valid JSON.');
   if (err.type === 'entity.too.large') return new HttpError(413, 'too_large', 'The request body is too large.');
   if (err.type === 'encoding.unsupported' || err.type === 'charset.unsupported')

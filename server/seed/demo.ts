@@ -31,7 +31,7 @@ export async function loadDemoData(db: Db, root: string, extra?: (tx: Db, shopId
     for (const u of demo.users) {
       const [row] = await tx
         .insert(users)
-        .values({ shopId: shop!.id, name: u.name, email: u.email.toLowerCase(), role: u.role, passwordHash, passwordChangedAt: new Date() })
+        .values({ shopId: shop!.id, name: u.name, email: u.email.toLowerCase(), handle: u.key, role: u.role, passwordHash, passwordChangedAt: new Date() })
         .$returningId();
       userIds.set(u.key, row!.id);
     }

@@ -21,7 +21,7 @@ export async function createTestApp(overrides: Record<string, string> = {}): Pro
   const base = testConfig(overrides);
   const testDb = await createTestDatabase(base);
   const config = { ...base, db: { ...base.db, database: testDb.name } };
-  const ctx: AppContext = { db: testDb.database.db, config, mailer: createMailer(config), log: pino({ level: 'silent' }) };
+  const ctx: AppContext = { db: testDb.database.db, config, mailer: createMailer(config), log: pino({ level: config.logLevel }) };
   const app = createApp({ ctx, pool: testDb.database.pool, sessionSecret: config.session.secret! });
   return {
     app,

@@ -1,0 +1,202 @@
+// Case notes: create, edit with optimistic concurrency, and the review workflow.
+// Every change bumps `version`, writes a revision snapshot and a change-log row in one transaction.
+import { and, eq, isNull, sql } from 'drizzle-orm';
+import type { Db } from '../../db/client';
+import { caseCodes, caseComments, caseRevisions, cases, caseTags, platforms } from '../../db/schema';
+import { parseDtc } from '../../shared/codes';
+import { canConfirmFix, canEditCase, canPublish, canSeeCase, isSeniorOrAbove, type Actor } from '../../shared/policy';
+import type { CaseCreate, CasePatch } from '../../shared/schemas/cases';
+import type { SessionUser } from '../auth/session-user';
+import { recordChange } from '../changes/change-log';
+import type { AppContext } from '../context';
+import { badRequest, conflict, forbidden, HttpError, notFound } from '../http/errors';
+import { notifyReturned, notifySubmitted } from './notify';
+import { vehicleIdFor } from './vehicles';
+
+export type CaseRow = typeof cases.$inferSelect;
+type CaseChanges = Partial<Omit<CaseRow, 'id' | 'shopId' | 'version' | 'createdAt'>>;
+
+/** The case if the actor may see it; otherwise 404, so ids of other shops or hidden drafts reveal nothing. */
+export async function loadVisibleCase(db: Db, actor: Actor, id: number): Promise<CaseRow> {
+  const [row] = await db.select().from(cases).where(and(eq(cases.id, id), eq(cases.shopId, actor.shopId), isNull(cases.deletedAt)));
+  if (!row || !canSeeCase(actor, row)) throw notFound('That case');
+  return row;
+}
+
+async function checkPlatform(db: Db, shopId: number, platformId: number | null | undefined) {
+  if (!platformId) return;
+  const [p] = await db.select({ id: platforms.id }).from(platforms).where(and(eq(platforms.id, platformId), eq(platforms.shopId, shopId)));
+  if (!p) throw badRequest('That platform is not one of your shop’s.', { platformId: 'No such platform in your shop.' });
+}
+
+async function writeLookups(db: Db, caseId: number, codes: string[], symptoms: string[]) {
+  await db.delete(caseCodes).where(eq(caseCodes.caseId, caseId));
+  await db.delete(caseTags).where(eq(caseTags.caseId, caseId));
+  const codeRows = codes.map((full) => {
+    const parsed = parseDtc(full);
+    return parsed.ok ? { caseId, code: parsed.dtc.code, ftb: parsed.dtc.ftb ?? '' } : null;
+  });
+  const unique = new Map(codeRows.filter((r) => r !== null).map((r) => [`${r.code}-${r.ftb}`, r]));
+  if (unique.size) await db.insert(caseCodes).values([...unique.values()]);
+  if (symptoms.length) await db.insert(caseTags).values(symptoms.map((tag) => ({ caseId, tag })));
+}
+
+function snapshot(row: CaseRow) {
+  const { id: _id, shopId: _shop, title: _title, body: _body, version: _v, createdAt: _c, updatedAt: _u, ...fields } = row;
+  return fields as Record<string, unknown>;
+}
+
+async function writeRevision(db: Db, row: CaseRow, authorId: number) {
+  await db.insert(caseRevisions).values({ caseId: row.id, version: row.version, title: row.title, body: row.body, fields: snapshot(row), authorId });
+}
+
+export interface CreateOptions {
+  /** Import keeps the file's author, dates and confirmation. */
+  authorId?: number;
+  createdAt?: Date;
+  confirmation?: { byId: number; at: Date; note: string | null } | null;
+  slug?: string | null;
+  skipEmail?: boolean;
+}
+
+export async function createCase(ctx: AppContext, actor: SessionUser | Actor, input: CaseCreate, options: CreateOptions = {}): Promise<{ id: number; version: number }> {
+  const status = input.status ?? 'draft';
+  if (status === 'published' && !canPublish(actor)) throw forbidden('Only senior techs and managers can publish. Send it for review instead.');
+  await checkPlatform(ctx.db, actor.shopId, input.platformId);
+  const id = await ctx.db.transaction(async (txRaw) => {
+    const tx = txRaw as unknown as Db;
+    const vehicleId = await vehicleIdFor(tx, actor.shopId, input.vehicle, input.platformId ?? null);
+    const [row] = await tx
+      .insert(cases)
+      .values({
+        shopId: actor.shopId,
+        slug: options.slug ?? null,
+        title: input.title,
+        body: input.body,
+        platformId: input.platformId ?? null,
+        vehicleId,
+        mileage: input.vehicle?.mileage ?? null,
+        mileageUnit: input.vehicle?.mileage !== undefined ? (input.vehicle?.mileageUnit ?? 'km') : null,
+        visitDate: input.vehicle?.visitDate ?? null,
+        codes: input.codes,
+        symptoms: input.symptoms,
+        context: input.context ?? [],
+        rootCause: input.rootCause ?? null,
+        fix: input.fix ?? null,
+        cause: input.cause ?? null,
+        status,
+        authorId: options.authorId ?? actor.id,
+        confirmedById: options.confirmation?.byId ?? null,
+        confirmedAt: options.confirmation?.at ?? null,
+        confirmNote: options.confirmation?.note ?? null,
+        ...(options.createdAt ? { createdAt: options.createdAt, updatedAt: options.confirmation?.at ?? options.createdAt } : {}),
+      })
+      .$returningId();
+    const caseId = row!.id;
+    await writeLookups(tx, caseId, input.codes, input.symptoms);
+    const [created] = await tx.select().from(cases).where(eq(cases.id, caseId));
+    await writeRevision(tx, created!, options.authorId ?? actor.id);
+    await recordChange(tx, actor.shopId, 'case', caseId);
+    return caseId;
+  });
+  if (status === 'review' && !options.skipEmail) await notifySubmitted(ctx, actor.shopId, { id, title: input.title }, 'name' in actor ? actor.name : 'A colleague');
+  return { id, version: 1 };
+}
+
+/** Applies changes if the case is still at `expectedVersion`; otherwise 409 with the current version. */
+async function applyChanges(ctx: AppContext, actor: Actor, row: CaseRow, expectedVersion: number, changes: CaseChanges, lookups?: { codes: string[]; symptoms: string[] }) {
+  const next = await ctx.db.transaction(async (txRaw) => {
+    const tx = txRaw as unknown as Db;
+    const [result] = await tx
+      .update(cases)
+      .set({ ...changes, version: sql`${cases.version} + 1`, updatedAt: new Date() })
+      .where(and(eq(cases.id, row.id), eq(cases.version, expectedVersion), isNull(cases.deletedAt)));
+    if (result.affectedRows !== 1) return null;
+    if (lookups) await writeLookups(tx, row.id, lookups.codes, lookups.symptoms);
+    const [updated] = await tx.select().from(cases).where(eq(cases.id, row.id));
+    await writeRevision(tx, updated!, actor.id);
+    await recordChange(tx, row.shopId, 'case', row.id, changes.deletedAt ? 'delete' : 'upsert');
+    return updated!;
+  });
+  if (!next) {
+    const [current] = await ctx.db.select({ version: cases.version }).from(cases).where(eq(cases.id, row.id));
+    throw new StaleVersionError(row.id, current?.version ?? row.version);
+  }
+  return next;
+}
+
+export class StaleVersionError extends HttpError {
+  constructor(
+    readonly caseId: number,
+    readonly currentVersion: number,
+  ) {
+    super(409, 'conflict', `Someone saved a newer version (${currentVersion}) of this case. Nothing was overwritten: compare and save again.`, undefined, { currentVersion });
+  }
+}
+
+export async function updateCase(ctx: AppContext, actor: Actor, id: number, patch: CasePatch) {
+  const row = await loadVisibleCase(ctx.db, actor, id);
+  if (!canEditCase(actor, row)) throw forbidden(row.status === 'published' ? 'Only senior techs and managers can edit a published case.' : 'Only the author or a senior tech can edit this case.');
+  const { version, vehicle, ...fields } = patch;
+  if (fields.platformId !== undefined) await checkPlatform(ctx.db, actor.shopId, fields.platformId);
+  const changes: CaseChanges = Object.fromEntries(Object.entries(fields).filter(([, v]) => v !== undefined));
+  if (vehicle !== undefined) {
+    changes.vehicleId = await vehicleIdFor(ctx.db, actor.shopId, vehicle, fields.platformId ?? row.platformId);
+    changes.mileage = vehicle?.mileage ?? null;
+    changes.mileageUnit = vehicle?.mileage !== undefined ? (vehicle?.mileageUnit ?? 'km') : null;
+    changes.visitDate = vehicle?.visitDate ?? null;
+  }
+  const touchesLookups = fields.codes !== undefined || fields.symptoms !== undefined;
+  const lookups = touchesLookups ? { codes: fields.codes ?? row.codes, symptoms: fields.symptoms ?? row.symptoms } : undefined;
+  const updated = await applyChanges(ctx, actor, row, version, changes, lookups);
+  return { id: updated.id, version: updated.version };
+}
+
+async function addComment(db: Db, caseId: number, authorId: number, kind: typeof caseComments.$inferInsert.kind, body: string) {
+  await db.insert(caseComments).values({ caseId, authorId, kind, body });
+}
+
+export async function submitCase(ctx: AppContext, actor: SessionUser, id: number) {
+  const row = await loadVisibleCase(ctx.db, actor, id);
+  if (row.authorId !== actor.id && !isSeniorOrAbove(actor)) throw forbidden('Only the author can send this case for review.');
+  if (row.status !== 'draft') throw conflict(row.status === 'review' ? 'This case is already waiting for review.' : 'This case is already published.');
+  await applyChanges(ctx, actor, row, row.version, { status: 'review' });
+  await addComment(ctx.db, id, actor.id, 'submitted', 'Sent for review.');
+  await notifySubmitted(ctx, actor.shopId, row, actor.name);
+}
+
+export async function publishCase(ctx: AppContext, actor: SessionUser, id: number) {
+  const row = await loadVisibleCase(ctx.db, actor, id);
+  if (!canPublish(actor)) throw forbidden('Only senior techs and managers can publish.');
+  if (row.status === 'published') throw conflict('This case is already published.');
+  await applyChanges(ctx, actor, row, row.version, { status: 'published' });
+  await addComment(ctx.db, id, actor.id, 'published', 'Published.');
+}
+
+export async function returnCase(ctx: AppContext, actor: SessionUser, id: number, comment: string) {
+  const row = await loadVisibleCase(ctx.db, actor, id);
+  if (!canPublish(actor)) throw forbidden('Only senior techs and managers can return a case.');
+  if (row.status !== 'review') throw conflict('Only a case waiting for review can be returned.');
+  await applyChanges(ctx, actor, row, row.version, { status: 'draft' });
+  await addComment(ctx.db, id, actor.id, 'returned', comment);
+  await notifyReturned(ctx, row, actor.name, comment);
+}
+
+export async function confirmFix(ctx: AppContext, actor: SessionUser, id: number, note: string | undefined) {
+  const row = await loadVisibleCase(ctx.db, actor, id);
+  if (!canConfirmFix(actor)) throw forbidden('Only senior techs and managers can confirm a fix.');
+  if (!row.fix?.trim()) throw badRequest('Write down the fix before confirming it.', { fix: 'Describe the fix first.' });
+  if (row.confirmedAt) throw conflict('This fix is already confirmed.');
+  await applyChanges(ctx, actor, row, row.version, { confirmedById: actor.id, confirmedAt: new Date(), confirmNote: note ?? null });
+  await addComment(ctx.db, id, actor.id, 'confirmed', note ? `Fix confirmed: ${note}` : 'Fix confirmed.');
+}
+
+export async function commentOnCase(ctx: AppContext, actor: SessionUser, id: number, body: string) {
+  await loadVisibleCase(ctx.db, actor, id);
+  await addComment(ctx.db, id, actor.id, 'comment', body);
+}
+
+export async function deleteCase(ctx: AppContext, actor: SessionUser, id: number) {
+  const row = await loadVisibleCase(ctx.db, actor, id);
+  await applyChanges(ctx, actor, row, row.version, { deletedAt: new Date() });
+}
