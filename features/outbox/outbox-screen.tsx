@@ -4,6 +4,7 @@ import { outboxResponseSchema, type OutboxMessage } from '../../shared/schemas/o
 import { useApi } from '../api/use-api';
 import { useTheme } from '../theme/use-theme';
 import { Button } from '../ui/button';
+import { Notice } from '../ui/notice';
 import { EmptyState, Loaded } from '../ui/states';
 import { Card, Row, Screen } from '../ui/surfaces';
 import { Heading, Text } from '../ui/text';
@@ -41,8 +42,10 @@ export function OutboxScreen() {
       </Row>
       <Text tone="slate">In demo mode no e-mail leaves this machine: invites, resets, review requests and digests land here.</Text>
       <Loaded data={data} error={error} retry={() => void mutate()}>
-        {({ messages }) =>
-          messages.length === 0 ? (
+        {({ messages, notice }) =>
+          notice ? (
+            <Notice tone="error">{notice}</Notice>
+          ) : messages.length === 0 ? (
             <EmptyState title="Nothing sent yet" hint="Invite someone from Team, or ask for a password reset, and the message shows up here." />
           ) : (
             <View style={{ gap: 12 }}>
