@@ -8,6 +8,7 @@ import type { Pool } from 'mysql2/promise';
 import type { AppContext } from '../context';
 import { HttpError } from '../http/errors';
 import { loadSessionUser, toSessionUser } from './service';
+import type { SessionUser } from './session-user';
 
 export const SESSION_COOKIE = 'causeway.sid';
 
@@ -22,6 +23,7 @@ export function installSessions(app: Express, ctx: AppContext, pool: Pool, secre
     },
     pool,
   );
+  throttleTouches(store);
   app.use(
     session({
       name: SESSION_COOKIE,
@@ -42,8 +44,8 @@ export function installSessions(app: Express, ctx: AppContext, pool: Pool, secre
 
   passport.serializeUser((user, done) => done(null, user.id));
   passport.deserializeUser((id: number, done) => {
-    loadSessionUser(ctx.db, id)
-      .then((user) => done(null, user && !user.disabled ? toSessionUser(user) : false))
+    cachedSessionUser(ctx, id)
+      .then((user) => done(null, user ?? false))
       .catch(done);
   });
   app.use(passport.initialize());
@@ -80,3 +82,38 @@ export const csrfProtection: RequestHandler = (req, res, next) => {
     next();
   });
 };
+
+// Per request, express-session reads the session and "touches" it, and passport loads the user:
+// three round trips. Touches are throttled to one a minute per session (the idle timeout is
+// counted in minutes), and users are cached for a few seconds. Ending sessions deletes their
+// rows, so sign-out, password changes and disabled accounts still take effect at once.
+const TOUCH_EVERY_MS = 60_000;
+const USER_CACHE_MS = 5_000;
+
+function throttleTouches(store: session.Store) {
+  const lastTouch = new Map<string, number>();
+  const touch = store.touch?.bind(store);
+  if (!touch) return;
+  store.touch = (sid, sess, callback) => {
+    const now = Date.now();
+    if (now - (lastTouch.get(sid) ?? 0) < TOUCH_EVERY_MS) return callback?.();
+    if (lastTouch.size > 50_000) lastTouch.clear();
+    lastTouch.set(sid, now);
+    touch(sid, sess, callback);
+  };
+}
+
+const userCache = new Map<number, { user: SessionUser | null; at: number }>();
+
+async function cachedSessionUser(ctx: AppContext, id: number): Promise<SessionUser | null> {
+  const hit = userCache.get(id);
+  if (hit && Date.now() - hit.at < USER_CACHE_MS) return hit.user;
+  const row = await loadSessionUser(ctx.db, id);
+  const user = row && !row.disabled ? toSessionUser(row) : null;
+  if (userCache.size > 10_000) userCache.clear();
+  userCache.set(id, { user, at: Date.now() });
+  return user;
+}
+
+/** Drops a user from this instance's cache after a change to their account. */
+export const forgetSessionUser = (id: number) => userCache.delete(id);

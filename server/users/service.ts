@@ -3,6 +3,7 @@ import type { z } from 'zod';
 import { users } from '../../db/schema';
 import type { inviteSchema, ShopUser, userPatchSchema } from '../../shared/schemas/auth';
 import { endSessionsOf, isDuplicate } from '../auth/service';
+import { forgetSessionUser } from '../auth/session';
 import type { SessionUser } from '../auth/session-user';
 import { issueToken } from '../auth/tokens';
 import type { AppContext } from '../context';
@@ -70,6 +71,7 @@ export async function updateUser(ctx: AppContext, manager: SessionUser, userId: 
     throw new HttpError(409, 'last_manager', 'A shop needs at least one active manager. Make someone else manager first.');
   }
   await ctx.db.update(users).set(patch).where(and(eq(users.id, userId), eq(users.shopId, manager.shopId)));
+  forgetSessionUser(userId);
   // Roles are re-read on every request; a disabled account must also lose the sessions it has.
   if (patch.disabled) await endSessionsOf(ctx.db, userId);
   return getShopUser(ctx, manager.shopId, userId);
