@@ -16,6 +16,7 @@ const configSchema = z.object({
   PORT: z.coerce.number().int().min(1).max(65535).default(8080),
   PUBLIC_URL: z.url().optional(),
   DATA_DIR: z.string().default(path.join(root, '.data')),
+  UPLOAD_DIR: z.string().optional(),
   DB_HOST: z.string().default('127.0.0.1'),
   DB_PORT: z.coerce.number().int().min(1).max(65535).default(3391),
   DB_NAME: z.string().regex(/^[a-z0-9_]+$/, 'lower-case letters, digits and _ only').default('causeway'),
@@ -52,7 +53,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env) {
     port: c.PORT,
     publicUrl: c.PUBLIC_URL ?? `http://${c.HOST}:${c.PORT}`,
     dataDir,
-    uploadDir: path.join(dataDir, 'uploads'),
+    uploadDir: c.UPLOAD_DIR ? path.resolve(c.UPLOAD_DIR) : path.join(dataDir, 'uploads'),
     webDist: path.join(root, 'dist'),
     /** npm run dev: pages come from Expo's dev server instead of dist/. */
     webDevServer: undefined as string | undefined,
