@@ -31,3 +31,21 @@ const migrationsFolder = path.join(import.meta.dirname, 'migrations');
 export async function applyMigrations(db: Db) {
   await migrate(db, { migrationsFolder });
 }
+
+const RETRYABLE = new Set(['ER_LOCK_DEADLOCK', 'ER_LOCK_WAIT_TIMEOUT']);
+
+/**
+ * Runs a transaction, retrying a few times when InnoDB picks it as a deadlock victim:
+ * the usual advice for such errors, and safe because the whole transaction was rolled back.
+ */
+export async function transaction<T>(db: Db, work: (tx: Db) => Promise<T>, attempts = 4): Promise<T> {
+  for (let attempt = 1; ; attempt++) {
+    try {
+      return await db.transaction((tx) => work(tx as unknown as Db));
+    } catch (err) {
+      const code = (err as { cause?: { code?: string }; code?: string }).cause?.code ?? (err as { code?: string }).code;
+      if (!code || !RETRYABLE.has(code) || attempt >= attempts) throw err;
+      await new Promise((r) => setTimeout(r, 5 * attempt + Math.random() * 20));
+    }
+  }
+}

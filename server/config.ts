@@ -13,7 +13,7 @@ const flag = z
 const configSchema = z.object({
   NODE_ENV: z.enum(['development', 'production', 'test']).default('development'),
   HOST: z.string().default('127.0.0.1'),
-  PORT: z.coerce.number().int().min(1).max(65535).default(8080),
+  PORT: z.coerce.number().int().min(0).max(65535).default(8080), // 0: any free port (tests)
   PUBLIC_URL: z.url().optional(),
   DATA_DIR: z.string().default(path.join(root, '.data')),
   UPLOAD_DIR: z.string().optional(),

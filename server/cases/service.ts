@@ -1,7 +1,7 @@
 // Case notes: create, edit with optimistic concurrency, and the review workflow.
 // Every change bumps `version`, writes a revision snapshot and a change-log row in one transaction.
 import { and, eq, isNull, sql } from 'drizzle-orm';
-import type { Db } from '../../db/client';
+import { transaction, type Db } from '../../db/client';
 import { caseCodes, caseComments, caseRevisions, cases, caseTags, platforms } from '../../db/schema';
 import { parseDtc } from '../../shared/codes';
 import { canConfirmFix, canEditCase, canPublish, canSeeCase, isSeniorOrAbove, type Actor } from '../../shared/policy';
@@ -29,9 +29,12 @@ async function checkPlatform(db: Db, shopId: number, platformId: number | null |
   if (!p) throw badRequest('That platform is not one of your shop’s.', { platformId: 'No such platform in your shop.' });
 }
 
-async function writeLookups(db: Db, caseId: number, codes: string[], symptoms: string[]) {
-  await db.delete(caseCodes).where(eq(caseCodes.caseId, caseId));
-  await db.delete(caseTags).where(eq(caseTags.caseId, caseId));
+async function writeLookups(db: Db, caseId: number, codes: string[], symptoms: string[], fresh = false) {
+  // A new case has no rows yet; deleting anyway takes gap locks that deadlock concurrent inserts.
+  if (!fresh) {
+    await db.delete(caseCodes).where(eq(caseCodes.caseId, caseId));
+    await db.delete(caseTags).where(eq(caseTags.caseId, caseId));
+  }
   const codeRows = codes.map((full) => {
     const parsed = parseDtc(full);
     return parsed.ok ? { caseId, code: parsed.dtc.code, ftb: parsed.dtc.ftb ?? '' } : null;
@@ -63,8 +66,7 @@ export async function createCase(ctx: AppContext, actor: SessionUser | Actor, in
   const status = input.status ?? 'draft';
   if (status === 'published' && !canPublish(actor)) throw forbidden('Only senior techs and managers can publish. Send it for review instead.');
   await checkPlatform(ctx.db, actor.shopId, input.platformId);
-  const id = await ctx.db.transaction(async (txRaw) => {
-    const tx = txRaw as unknown as Db;
+  const id = await transaction(ctx.db, async (tx) => {
     const vehicleId = await vehicleIdFor(tx, actor.shopId, input.vehicle, input.platformId ?? null);
     const [row] = await tx
       .insert(cases)
@@ -93,7 +95,7 @@ export async function createCase(ctx: AppContext, actor: SessionUser | Actor, in
       })
       .$returningId();
     const caseId = row!.id;
-    await writeLookups(tx, caseId, input.codes, input.symptoms);
+    await writeLookups(tx, caseId, input.codes, input.symptoms, true);
     const [created] = await tx.select().from(cases).where(eq(cases.id, caseId));
     await writeRevision(tx, created!, options.authorId ?? actor.id);
     await recordChange(tx, actor.shopId, 'case', caseId);
@@ -105,8 +107,7 @@ export async function createCase(ctx: AppContext, actor: SessionUser | Actor, in
 
 /** Applies changes if the case is still at `expectedVersion`; otherwise 409 with the current version. */
 async function applyChanges(ctx: AppContext, actor: Actor, row: CaseRow, expectedVersion: number, changes: CaseChanges, lookups?: { codes: string[]; symptoms: string[] }) {
-  const next = await ctx.db.transaction(async (txRaw) => {
-    const tx = txRaw as unknown as Db;
+  const next = await transaction(ctx.db, async (tx) => {
     const [result] = await tx
       .update(cases)
       .set({ ...changes, version: sql`${cases.version} + 1`, updatedAt: new Date() })

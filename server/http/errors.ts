@@ -66,6 +66,13 @@ function fromBodyParser(err: BodyParserError & { name?: string; code?: string; m
   return null;
 }
 
+const CONNECTION_ERRORS = new Set(['ECONNREFUSED', 'ECONNRESET', 'PROTOCOL_CONNECTION_LOST', 'ETIMEDOUT', 'EPIPE']);
+
+function isDatabaseDown(err: unknown): boolean {
+  const e = err as { code?: string; cause?: { code?: string }; message?: string };
+  return CONNECTION_ERRORS.has(e?.cause?.code ?? e?.code ?? '') || /connection is in closed state/.test(e?.message ?? '');
+}
+
 /** The one error handler: JSON always, no stack traces, 5xx only for our own faults. */
 export function errorHandler(log: { error: (obj: object, msg: string) => void }): ErrorRequestHandler {
   return (err, req, res, _next) => {
@@ -73,6 +80,10 @@ export function errorHandler(log: { error: (obj: object, msg: string) => void })
     if (err instanceof HttpError) httpError = err;
     else if (err instanceof ZodError) httpError = badRequest('Some fields are not valid.', fieldsFromZod(err));
     else if (err && typeof err === 'object') httpError = fromBodyParser(err as BodyParserError);
+    if (!httpError && isDatabaseDown(err)) {
+      log.error({ err, reqId: req.id }, 'database unavailable');
+      httpError = new HttpError(503, 'db_unavailable', 'The database is not answering right now. Nothing was saved; try again in a moment.');
+    }
     if (!httpError) {
       log.error({ err, reqId: req.id }, 'unhandled error');
       httpError = new HttpError(500, 'internal', 'Something went wrong on our side. Try again; if it keeps happening, tell your manager.');

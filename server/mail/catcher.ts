@@ -19,6 +19,12 @@ export async function startMailCatcher(config: Config, options: { persist?: bool
     silent: true,
     ...(options.persist ? { mailDirectory: path.join(config.dataDir, 'mail') } : {}),
   });
-  await maildev.start();
+  try {
+    await maildev.start();
+  } catch (err) {
+    // Another process started one on these ports a moment ago: use that one.
+    if ((err as { code?: string }).code === 'EADDRINUSE') return async () => {};
+    throw err;
+  }
   return () => maildev.stop();
 }
