@@ -10,6 +10,7 @@ import { shops, users } from '../../db/schema';
 import type { Role } from '../../shared/roles';
 import { testConfig } from './env';
 import { createTestDatabase } from './test-db';
+import { connect } from '../../db/client';
 
 export interface TestApp {
   app: CausewayApp;
@@ -29,6 +30,21 @@ export async function createTestApp(overrides: Record<string, string> = {}): Pro
     close: async () => {
       await app.shutdown();
       await testDb.drop();
+    },
+  };
+}
+
+/** A second app instance over the same database, as a load balancer would run it. */
+export function secondInstance(first: TestApp): TestApp {
+  const database = connect(first.ctx.config.db);
+  const ctx: AppContext = { ...first.ctx, db: database.db };
+  const app = createApp({ ctx, pool: database.pool, sessionSecret: first.ctx.config.session.secret! });
+  return {
+    app,
+    ctx,
+    close: async () => {
+      await app.shutdown();
+      await database.close();
     },
   };
 }
