@@ -1,0 +1,1 @@
+export { CodeScreen as default } from '@/features/codes/code-screen';

@@ -1,0 +1,1 @@
+export { CodesScreen as default } from '@/features/codes/codes-screen';

@@ -1,0 +1,1 @@
+export { PlatformScreen as default } from '@/features/platforms/platform-screen';

@@ -1,0 +1,1 @@
+export { PlatformsScreen as default } from '@/features/platforms/platforms-screen';

@@ -1,0 +1,1 @@
+export { NewPlatformScreen as default } from '@/features/platforms/new-platform-screen';
