@@ -41,3 +41,5 @@ export { compareByRatio, expectedCost, expectedMinutes, orderSteps, type Expecte
 export { markStep, refreshWalk, startWalk, type StartOptions, type Step, type StepMark, type StepOutcome, type Walk } from './walk';
 export { measurementSchema, stepMarkSchema, walkCreateSchema, walkStateSchema, type StepMarkInput, type WalkCreate } from './api-schemas';
 export { buildWriteUp } from './write-up';
+export { caseSimilarity, codeSimilarity, FAMILY_CREDIT, SIMILARITY_WEIGHTS, type SimilarityInput } from './similarity';
+export { isSameMark } from './same-mark';

@@ -1,0 +1,1 @@
+export { TreesScreen as default } from '@/features/trees/trees-screen';

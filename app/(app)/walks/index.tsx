@@ -1,0 +1,1 @@
+export { WalksScreen as default } from '@/features/walks/walks-screen';

@@ -1,0 +1,1 @@
+export { NewWalkScreen as default } from '@/features/walks/new-walk-screen';
