@@ -1,22 +1,13 @@
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
-import type { Browser, Page } from 'playwright-core';
-import { DEMO_PASSWORD, readDemoShop } from '../../server/seed/demo-files';
-import { launchBrowser, openPage, screenshot, signInThroughUi, VIEWPORTS, type ViewportName } from '../support/browser';
+import { describe, expect, inject, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import type { Role } from '../../shared/roles';
+import { openPage, signInAs, useBrowser, screenshot, VIEWPORTS, type ViewportName } from '../support/browser';
 
 const baseUrl = inject('baseUrl');
-const demo = readDemoShop(new URL('../../content', import.meta.url).pathname);
-const person = (role: string) => demo.users.find((u) => u.role === role)!;
 
-let browser: Browser;
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-afterAll(() => browser?.close());
+const getBrowser = useBrowser();
 
-async function signIn(page: Page, role: string) {
-  await signInThroughUi(page, person(role).email, DEMO_PASSWORD);
-  await page.getByRole('navigation', { name: 'Main' }).waitFor();
-}
+const signIn = (page: Page, role: Role) => signInAs(page, role);
 
 /** The browser logs the 400 that a deliberately bad input earns; anything else is a problem. */
 const unexpected = (problems: string[], path: string) => problems.filter((p) => !(p.includes('status of 400') && p.includes(path)));
@@ -28,7 +19,7 @@ async function noHorizontalScroll(page: Page) {
 
 describe.each(Object.keys(VIEWPORTS) as ViewportName[])('trouble codes at %s size', (viewport) => {
   it('explains P0302 and decodes pasted bytes', async () => {
-    const { page, problems, context } = await openPage(browser, viewport, baseUrl);
+    const { page, problems, context } = await openPage(getBrowser(), viewport, baseUrl);
     await signIn(page, 'technician');
     await page.goto('/codes/P0302');
     await page.getByRole('heading', { name: 'What the code says' }).waitFor();
@@ -53,7 +44,7 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('trouble codes at %s siz
   });
 
   it('shows the failure type byte of P0302-13', async () => {
-    const { page, problems, context } = await openPage(browser, viewport, baseUrl);
+    const { page, problems, context } = await openPage(getBrowser(), viewport, baseUrl);
     await signIn(page, 'apprentice');
     await page.goto('/codes/P0302-13');
     await page.getByText(/Failure type byte 13: circuit open/).waitFor();
@@ -64,7 +55,7 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('trouble codes at %s siz
   });
 
   it('looks codes up by words and browses by system', async () => {
-    const { page, problems, context } = await openPage(browser, viewport, baseUrl);
+    const { page, problems, context } = await openPage(getBrowser(), viewport, baseUrl);
     await signIn(page, 'technician');
     await page.goto('/codes');
     await page.getByLabel('Look up a code or words').fill('lean bank 2');
@@ -79,7 +70,7 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('trouble codes at %s siz
   });
 
   it('reads a pasted scan report and links to a new case', async () => {
-    const { page, problems, context } = await openPage(browser, viewport, baseUrl);
+    const { page, problems, context } = await openPage(getBrowser(), viewport, baseUrl);
     await signIn(page, 'technician');
     await page.goto('/scan');
     const report = ['Quick scan, bay 2', 'VIN: 1M8GDM9AXKP042788', 'Odometer: 84,210 km', 'Stored: P0302-13', 'Pending: P0171'].join('\n');
@@ -101,7 +92,7 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('trouble codes at %s siz
   });
 
   it('shows a platform with banks and firing companions', async () => {
-    const { page, problems, context } = await openPage(browser, viewport, baseUrl);
+    const { page, problems, context } = await openPage(getBrowser(), viewport, baseUrl);
     await signIn(page, 'senior');
     await page.goto('/platforms');
     await page.getByText('Vexholm Kestrune').first().click();

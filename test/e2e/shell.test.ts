@@ -1,21 +1,12 @@
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
-import type { Browser } from 'playwright-core';
-import { DEMO_PASSWORD, readDemoShop } from '../../server/seed/demo-files';
-import { launchBrowser, openPage, screenshot, signInThroughUi, VIEWPORTS, type ViewportName } from '../support/browser';
+import { describe, expect, inject, it } from 'vitest';
+import { demoPerson as person, openPage, screenshot, signInAs, signInThroughUi, useBrowser, VIEWPORTS, type ViewportName } from '../support/browser';
 
 const baseUrl = inject('baseUrl');
-const demo = readDemoShop(new URL('../../content', import.meta.url).pathname);
-const person = (role: string) => demo.users.find((u) => u.role === role)!;
-
-let browser: Browser;
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-afterAll(() => browser?.close());
+const getBrowser = useBrowser();
 
 describe.each(Object.keys(VIEWPORTS) as ViewportName[])('signed-in shell at %s size', (viewport) => {
   it('shows the sign-in page with no console errors or CSP violations', async () => {
-    const { page, problems, context } = await openPage(browser, viewport, baseUrl);
+    const { page, problems, context } = await openPage(getBrowser(), viewport, baseUrl);
     await page.goto('/');
     await page.getByRole('button', { name: 'Sign in' }).waitFor();
     expect(page.url()).toMatch(/\/sign-in$/);
@@ -25,7 +16,7 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('signed-in shell at %s s
   });
 
   it('refuses a wrong password with the generic message', async () => {
-    const { page, context } = await openPage(browser, viewport, baseUrl);
+    const { page, context } = await openPage(getBrowser(), viewport, baseUrl);
     await signInThroughUi(page, person('technician').email, 'not the right one');
     await page.getByText('That e-mail and password do not match an active account.').waitFor();
     expect(page.url()).toMatch(/\/sign-in$/);
@@ -34,10 +25,9 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('signed-in shell at %s s
 
   for (const role of ['apprentice', 'technician', 'senior', 'manager'] as const) {
     it(`signs in as ${role} and shows the shell for that role`, async () => {
-      const { page, problems, context } = await openPage(browser, viewport, baseUrl);
-      await signInThroughUi(page, person(role).email, DEMO_PASSWORD);
+      const { page, problems, context } = await openPage(getBrowser(), viewport, baseUrl);
+      await signInAs(page, role);
       const nav = page.getByRole('navigation', { name: 'Main' });
-      await nav.waitFor();
       await nav.getByText('Search').waitFor();
       if (viewport === 'wide') {
         // managers see the team and outbox in the side navigation; nobody else does
@@ -64,7 +54,7 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('signed-in shell at %s s
   }
 
   it('shows the not-found page for an unknown path', async () => {
-    const { page, context } = await openPage(browser, viewport, baseUrl);
+    const { page, context } = await openPage(getBrowser(), viewport, baseUrl);
     await page.goto('/no/such/page');
     await page.getByText('No page here').waitFor();
     await context.close();

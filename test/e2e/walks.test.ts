@@ -1,22 +1,13 @@
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
-import type { Browser, Page } from 'playwright-core';
-import { DEMO_PASSWORD, readDemoShop } from '../../server/seed/demo-files';
-import { launchBrowser, openPage, screenshot, signInThroughUi } from '../support/browser';
+import { describe, expect, inject, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import type { Role } from '../../shared/roles';
+import { openPage, signInAs, useBrowser, screenshot } from '../support/browser';
 
 const baseUrl = inject('baseUrl');
-const demo = readDemoShop(new URL('../../content', import.meta.url).pathname);
-const person = (role: string) => demo.users.find((u) => u.role === role)!;
 
-let browser: Browser;
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-afterAll(() => browser?.close());
+const getBrowser = useBrowser();
 
-async function signedInAs(page: Page, role: string) {
-  await signInThroughUi(page, person(role).email, DEMO_PASSWORD);
-  await page.getByRole('navigation', { name: 'Main' }).waitFor();
-}
+const signedInAs = (page: Page, role: Role) => signInAs(page, role);
 
 // The demo case 0050: VT27, P0302 + P0305 after a timing belt job, coil connectors crossed.
 const DEMO_MISFIRE = '/walks/new?codes=P0302,P0305&symptoms=rough-idle,shakes-at-idle&context=after-timing-work';
@@ -32,7 +23,7 @@ async function startDemoMisfire(page: Page) {
 
 describe('a cause walk on a phone', () => {
   it('walks the demo misfire case to a write-up, one step at a time', async () => {
-    const { page, problems, context } = await openPage(browser, 'phone', baseUrl);
+    const { page, problems, context } = await openPage(getBrowser(), 'phone', baseUrl);
     await signedInAs(page, 'apprentice');
     await page.goto('/walks');
     await page.getByRole('heading', { name: 'Walks', exact: true }).waitFor();
@@ -82,7 +73,7 @@ describe('a cause walk on a phone', () => {
   });
 
   it('queues a mark made offline, says so in words, and sends it when the connection returns', async () => {
-    const { page, problems, context } = await openPage(browser, 'phone', baseUrl);
+    const { page, problems, context } = await openPage(getBrowser(), 'phone', baseUrl);
     await signedInAs(page, 'technician');
     await startDemoMisfire(page);
     const url = page.url();
@@ -105,7 +96,7 @@ describe('a cause walk on a phone', () => {
 
 describe('a cause walk on a wide screen', () => {
   it('shows the tree beside the step, and a senior looks over an apprentice’s walk', async () => {
-    const { page, problems, context } = await openPage(browser, 'wide', baseUrl);
+    const { page, problems, context } = await openPage(getBrowser(), 'wide', baseUrl);
     await signedInAs(page, 'senior');
     await page.goto('/walks');
     await page.getByText('The shop’s walks to look over').waitFor();

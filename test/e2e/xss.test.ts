@@ -1,13 +1,11 @@
 // Markdown safety in the real browser: each hostile note is saved through the API and opened
 // in Chromium. Nothing may run: no dialog, no console error, no CSP report, and the flag the
 // vectors try to set stays unset. OWASP ASVS 5.0 1.3.5 / 1.2.2.
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
-import type { Browser } from 'playwright-core';
-import { DEMO_PASSWORD, readDemoShop } from '../../server/seed/demo-files';
-import { launchBrowser, openPage, screenshot, signInThroughUi } from '../support/browser';
+import { beforeAll, describe, expect, inject, it } from 'vitest';
+import { openPage, screenshot, signInAs, useBrowser } from '../support/browser';
 
 const baseUrl = inject('baseUrl');
-const senior = readDemoShop(new URL('../../content', import.meta.url).pathname).users.find((u) => u.role === 'senior')!;
+const getBrowser = useBrowser();
 const run = 'window.__xss=1;alert(1)';
 
 /** At least 30 vectors: script, event handlers, javascript: and data: URLs, SVG, nested and malformed tags, Markdown link tricks. */
@@ -52,14 +50,11 @@ export const XSS_VECTORS: string[] = [
   `<link rel="import" href="data:text/html,<script>${run}</script>">`,
 ];
 
-let browser: Browser;
 let caseIds: number[] = [];
 
 beforeAll(async () => {
-  browser = await launchBrowser();
-  const { page, context } = await openPage(browser, 'wide', baseUrl);
-  await signInThroughUi(page, senior.email, DEMO_PASSWORD);
-  await page.getByRole('navigation', { name: 'Main' }).waitFor();
+  const { page, context } = await openPage(getBrowser(), 'wide', baseUrl);
+  await signInAs(page, 'senior');
   // create the hostile cases through the API with the browser's own session
   caseIds = await page.evaluate(async (vectors) => {
     const token = (await (await fetch('/api/auth/csrf')).json()).token as string;
@@ -76,15 +71,13 @@ beforeAll(async () => {
   }, XSS_VECTORS);
   await context.close();
 }, 120_000);
-afterAll(() => browser?.close());
 
 describe('hostile Markdown in case notes', () => {
   it(`renders ${XSS_VECTORS.length} XSS vectors inert`, async () => {
     expect(XSS_VECTORS.length).toBeGreaterThanOrEqual(30);
     expect(caseIds).toHaveLength(XSS_VECTORS.length);
-    const { page, problems, context } = await openPage(browser, 'wide', baseUrl);
-    await signInThroughUi(page, senior.email, DEMO_PASSWORD);
-    await page.getByRole('navigation', { name: 'Main' }).waitFor();
+    const { page, problems, context } = await openPage(getBrowser(), 'wide', baseUrl);
+    await signInAs(page, 'senior');
     const failures: string[] = [];
     for (const [i, id] of caseIds.entries()) {
       await page.goto(`/cases/${id}`);

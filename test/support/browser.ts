@@ -2,6 +2,9 @@
 import { mkdirSync } from 'node:fs';
 import path from 'node:path';
 import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
+import { afterAll, beforeAll } from 'vitest';
+import { DEMO_PASSWORD, readDemoShop } from '../../server/seed/demo-files';
+import type { Role } from '../../shared/roles';
 
 export const VIEWPORTS = { phone: { width: 390, height: 844 }, wide: { width: 1280, height: 800 } } as const;
 export type ViewportName = keyof typeof VIEWPORTS;
@@ -66,4 +69,32 @@ export async function signInThroughUi(page: Page, email: string, password: strin
   await page.getByLabel('E-mail').fill(email);
   await page.getByLabel('Password').fill(password);
   await page.getByRole('button', { name: 'Sign in' }).click();
+}
+
+const demoShop = readDemoShop(path.resolve(import.meta.dirname, '../../content'));
+
+/** The first demo user with this role (content/shop.yaml). */
+export function demoPerson(role: Role) {
+  const person = demoShop.users.find((u) => u.role === role);
+  if (!person) throw new Error(`no demo user with role ${role}`);
+  return person;
+}
+
+/** Signs in through the UI as the demo user of this role and waits for the signed-in shell. */
+export async function signInAs(page: Page, role: Role) {
+  await signInThroughUi(page, demoPerson(role).email, DEMO_PASSWORD);
+  await page.getByRole('navigation', { name: 'Main' }).waitFor();
+}
+
+/** One Chromium for the test file: launched before its tests, closed after. */
+export function useBrowser(): () => Browser {
+  let browser: Browser | undefined;
+  beforeAll(async () => {
+    browser = await launchBrowser();
+  });
+  afterAll(() => browser?.close());
+  return () => {
+    if (!browser) throw new Error('the browser is not running yet');
+    return browser;
+  };
 }
