@@ -284,5 +284,5 @@ export const digestRuns = mysqlTable(
     recipients: int('recipients').notNull(),
     createdAt: createdAt(),
   },
-  (t) => [index('digest_runs_shop').on(t.shopId, t.createdAt)],
+  (t) => [index('digest_runs_shop').on(t.shopId, t.createdAt), uniqueIndex('digest_runs_period').on(t.shopId, t.periodKey, t.kind)],
 );

@@ -9,6 +9,7 @@ import { createApp } from './app';
 import type { Config } from './config';
 import type { AppContext } from './context';
 import { createMailer } from './mail/mailer';
+import { startDigestScheduler } from './patterns/scheduler';
 
 /** The configured secret, or one generated once and kept under .data/ so sessions survive restarts. */
 export function sessionSecret(config: Config): string {
@@ -40,9 +41,11 @@ export async function startServer(config: Config): Promise<RunningServer> {
   });
   const address = server.address();
   const port = typeof address === 'object' && address ? address.port : config.port;
+  const stopDigest = startDigestScheduler(ctx);
   let stopping: Promise<void> | null = null;
   const stop = () =>
     (stopping ??= new Promise<void>((resolve) => {
+      stopDigest();
       // close() waits for in-flight requests; idle keep-alive sockets are closed at once.
       server.close(() => resolve());
       server.closeIdleConnections();

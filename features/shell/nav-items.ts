@@ -15,6 +15,14 @@ export interface NavItem {
 
 export const NAV_ITEMS: NavItem[] = [
   { href: '/', match: '/', label: 'Search', symbol: '⌕', permission: 'search.read', primary: true },
+  { href: '/cases', match: '/cases', label: 'Cases', symbol: '▤', permission: 'cases.read', primary: true },
+  { href: '/walks', match: '/walks', label: 'Walks', symbol: '➜', permission: 'walks.use', primary: true },
+  { href: '/codes', match: '/codes', label: 'Codes', symbol: '⚑', permission: 'codes.read', primary: true },
+  { href: '/scan', match: '/scan', label: 'Scan report', symbol: '⇪', permission: 'cases.write', primary: false },
+  { href: '/platforms', match: '/platforms', label: 'Platforms', symbol: '⚙', permission: 'platforms.read', primary: false },
+  { href: '/trees', match: '/trees', label: 'Cause trees', symbol: '⋔', permission: 'trees.manage', primary: false },
+  { href: '/patterns', match: '/patterns', label: 'Patterns', symbol: '▦', permission: 'patterns.read', primary: false },
+  { href: '/vehicles', match: '/vehicles', label: 'Vehicles', symbol: '▣', permission: 'cases.read', primary: false },
   { href: '/team', match: '/team', label: 'Team', symbol: '☰', permission: 'users.manage', primary: false },
   { href: '/outbox', match: '/outbox', label: 'Outbox', symbol: '✉', permission: 'outbox.read', primary: false },
   { href: '/account', match: '/account', label: 'Account', symbol: '◉', permission: 'auth.self', primary: true },

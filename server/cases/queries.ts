@@ -7,6 +7,7 @@ import { parseDtc } from '../../shared/codes';
 import { canConfirmFix, canEditCase, canPublish, isSeniorOrAbove, type Actor } from '../../shared/policy';
 import type { CaseDetail, CaseListQuery, CaseSummary } from '../../shared/schemas/cases';
 import type { AppContext } from '../context';
+import { findRepeats } from '../patterns/service';
 import { extractFromNote } from './markdown';
 import { loadVisibleCase } from './service';
 
@@ -104,12 +105,6 @@ export async function listCases(ctx: AppContext, actor: Actor, q: CaseListQuery)
 
 export const attachmentUrl = (id: number) => `/api/attachments/${id}`;
 
-/** Hook for repeat visits (comebacks); the patterns feature supplies the real finder. */
-export type RepeatFinder = (ctx: AppContext, shopId: number, caseId: number) => Promise<CaseDetail['repeats']>;
-let findRepeatsFor: RepeatFinder = async () => [];
-export const setRepeatFinder = (finder: RepeatFinder) => {
-  findRepeatsFor = finder;
-};
 
 export async function getCaseDetail(ctx: AppContext, actor: Actor, id: number): Promise<CaseDetail> {
   const row = await loadVisibleCase(ctx.db, actor, id);
@@ -127,7 +122,7 @@ export async function getCaseDetail(ctx: AppContext, actor: Actor, id: number): 
       .innerJoin(users, eq(users.id, caseComments.authorId))
       .where(eq(caseComments.caseId, id))
       .orderBy(asc(caseComments.id)),
-    findRepeatsFor(ctx, actor.shopId, id),
+    findRepeats(ctx, actor.shopId, id),
   ]);
   const base = toSummary(summary as SummaryRow);
   const facts = extra[0];

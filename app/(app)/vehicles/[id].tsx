@@ -1,0 +1,1 @@
+export { VehicleScreen as default } from '@/features/vehicles/vehicle-screen';

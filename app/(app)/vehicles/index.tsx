@@ -1,0 +1,1 @@
+export { VehiclesScreen as default } from '@/features/vehicles/vehicles-screen';

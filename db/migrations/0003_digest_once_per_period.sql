@@ -1,0 +1,1 @@
+ALTER TABLE `digest_runs` ADD CONSTRAINT `digest_runs_period` UNIQUE(`shop_id`,`period_key`,`kind`);
