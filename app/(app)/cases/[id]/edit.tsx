@@ -1,0 +1,1 @@
+export { EditCaseScreen as default } from '@/features/cases/editor-screen';

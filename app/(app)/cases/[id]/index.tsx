@@ -1,0 +1,1 @@
+export { CaseScreen as default } from '@/features/cases/case-screen';

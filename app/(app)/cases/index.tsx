@@ -1,0 +1,1 @@
+export { CaseListScreen as default } from '@/features/cases/case-list-screen';

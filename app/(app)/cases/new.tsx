@@ -1,0 +1,1 @@
+export { NewCaseScreen as default } from '@/features/cases/editor-screen';
