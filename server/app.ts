@@ -19,6 +19,7 @@ import { patternRoutes } from './patterns/routes';
 import { vehicleRoutes } from './vehicles/routes';
 import { userRoutes } from './users/routes';
 import { searchRoutes } from './search/routes';
+import { stopSearch } from './search/service';
 import { walkRoutes } from './walks/routes';
 import { treeRoutes } from './trees/routes';
 import { codeRoutes, vinRoutes } from './codes/routes';
@@ -106,7 +107,12 @@ export function createApp({ ctx, pool, sessionSecret }: AppOptions): CausewayApp
   if (ctx.config.webDevServer) proxyToDevServer(app, ctx.config.webDevServer);
   else serveWebApp(app, ctx.config.webDist);
   app.use(errorHandler(ctx.log));
-  return Object.assign(app, { shutdown: () => sessionStore.close() });
+  return Object.assign(app, {
+    shutdown: async () => {
+      stopSearch(ctx);
+      await sessionStore.close();
+    },
+  });
 }
 
 /** The exported Expo web app (output "single") with a fallback to index.html for deep links. */

@@ -1,1 +1,1 @@
-export { HomeScreen as default } from '@/features/home/home-screen';
+export { SearchScreen as default } from '@/features/search/search-screen';

@@ -2,6 +2,7 @@ import { Router } from 'express';
 import { sql } from 'drizzle-orm';
 import type { AppContext } from '../context';
 import { can } from '../http/guard';
+import { searchIndexStatus } from '../search/service';
 
 export function healthRoutes(ctx: AppContext) {
   const r = Router();
@@ -10,7 +11,7 @@ export function healthRoutes(ctx: AppContext) {
       .execute(sql`SELECT 1`)
       .then(() => 'up' as const)
       .catch(() => 'down' as const);
-    res.status(db === 'up' ? 200 : 503).json({ ok: db === 'up', db, version: ctx.config.version });
+    res.status(db === 'up' ? 200 : 503).json({ ok: db === 'up', db, version: ctx.config.version, index: searchIndexStatus(ctx) });
   });
   return r;
 }

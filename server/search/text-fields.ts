@@ -1,0 +1,81 @@
+// What the text index holds per case, and how words become index terms.
+// The full body is never indexed: at 100,000 cases it made the index take 51 s
+// and 760 MiB (docs/performance.md). A case's title, root cause and fix go in
+// whole; from the body only its most frequent content words (a bounded set).
+// Tags are exact keys (shop-index.ts), not text.
+import type { Options, SearchOptions } from 'minisearch';
+import { STOP_WORDS, stem } from '../../shared/search/text';
+
+/** Body words kept per case; enough for the words a note keeps coming back to. */
+export const BODY_TERMS_PER_CASE = 16;
+
+// Words every note has (its section headings, the caution), which would match everything.
+const NOTE_WORDS = new Set([
+  'what', 'did', 'tests', 'test', 'readings', 'reading', 'cause', 'fix', 'caution', 'follow', 'manufacturer', 'manufacturer\'s',
+  'procedure', 'spec', 'found', 'fault', 'ruled', 'out', 'not', 'no', 'one', 'two', 'both', 'off', 'back', 'then', 'before',
+  'first', 'went', 'came', 'done', 'checked', 'check', 'put', 'new', 'old', 'other', 'others', 'same', 'each', 'only',
+]);
+
+// Words repeat across notes far more than they vary: stem each spelling once.
+const STEMS = new Map<string, string | null>();
+const STEMS_MAX = 200_000;
+
+/** Index term of a word: lower case, stop words dropped, lightly stemmed (misfiring = misfire). */
+export function indexTerm(word: string): string | null {
+  const hit = STEMS.get(word);
+  if (hit !== undefined) return hit;
+  const w = word.toLowerCase();
+  const term = w.length < 2 || w.length > 40 || STOP_WORDS.has(w) ? null : stem(w);
+  if (STEMS.size >= STEMS_MAX) STEMS.clear();
+  STEMS.set(word, term);
+  return term;
+}
+
+/** The most frequent content words of a note body, at most `max`, most frequent first. */
+export function bodyTerms(body: string, max = BODY_TERMS_PER_CASE): string {
+  const counts = new Map<string, number>();
+  for (const m of body.toLowerCase().matchAll(/\p{L}[\p{L}\p{N}']*/gu)) {
+    const w = m[0];
+    if (w.length < 3 || STOP_WORDS.has(w) || NOTE_WORDS.has(w)) continue;
+    counts.set(w, (counts.get(w) ?? 0) + 1);
+  }
+  // stable: equal counts keep their first-seen order
+  return [...counts.entries()]
+    .sort((a, b) => b[1] - a[1])
+    .slice(0, max)
+    .map(([w]) => w)
+    .join(' ');
+}
+
+export interface TextDoc {
+  id: number;
+  title: string;
+  notes: string;
+}
+
+export function textDoc(c: { id: number; title: string; body: string; rootCause: string | null; fix: string | null; symptoms: string[]; context: string[] }): TextDoc {
+  return {
+    id: c.id,
+    title: c.title,
+    notes: [c.rootCause ?? '', c.fix ?? '', bodyTerms(c.body)].join(' '),
+  };
+}
+
+export const TEXT_FIELDS = ['title', 'notes'] as const;
+
+export const textIndexOptions: Options<TextDoc> = {
+  fields: [...TEXT_FIELDS],
+  storeFields: [],
+  processTerm: (term) => indexTerm(term),
+};
+
+/** Fuzzy only where it pays: one typo in words of 5+ letters, none in short words (too many near neighbours). */
+export const fuzzyOf = (term: string): number | false => (term.length >= 5 ? 0.2 : false);
+
+export const textSearchDefaults: SearchOptions = {
+  boost: { title: 2, notes: 1 },
+  fuzzy: fuzzyOf,
+  prefix: false,
+  weights: { fuzzy: 0.45, prefix: 0.4 },
+  processTerm: (term) => indexTerm(term),
+};
