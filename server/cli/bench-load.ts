@@ -64,19 +64,24 @@ for (const p of people) {
 const queries = ['misfire cyl 2 and 5 after timing work', 'P0171 lean bank 1', 'boost leak whistle', 'U0100 no comms', 'abs light wheel speed', 'clutch pedal sinks', 'p0299 vt27', 'rough idel'];
 type Ctx = { cookie?: string; token?: string; n?: number; email?: string };
 let connection = 0;
+/** The session cookie from a response; autocannon keeps raw header names, so match case-insensitively. */
+function setCookie(headers: Record<string, string | string[]>): string {
+  const key = Object.keys(headers).find((k) => k.toLowerCase() === 'set-cookie');
+  const value = key ? headers[key] : undefined;
+  return value ? String(Array.isArray(value) ? value[0] : value).split(';')[0]! : '';
+}
 const jsonHeaders = (ctx: Ctx) => ({ 'content-type': 'application/json', cookie: ctx.cookie ?? '', 'x-csrf-token': ctx.token ?? '' });
 
 const cycle: autocannon.Request[] = [
   { method: 'GET', path: '/api/auth/csrf', setupRequest: (req) => ({ ...req, headers: {} }), onResponse: (_s, body, ctx: Ctx, headers) => {
       ctx.token = JSON.parse(body).token;
-      ctx.cookie = String((headers as Record<string, string | string[]>)['set-cookie'] ?? '').split(';')[0];
+      ctx.cookie = setCookie(headers);
     } },
   { method: 'POST', path: '/api/auth/login', setupRequest: (req, ctx: Ctx) => {
       ctx.email ??= people[connection++ % people.length]!.email;
       return { ...req, headers: jsonHeaders(ctx), body: JSON.stringify({ email: ctx.email, password: DEMO_PASSWORD }) };
     }, onResponse: (_s, _b, ctx: Ctx, headers) => {
-      const set = (headers as Record<string, string | string[]>)['set-cookie'];
-      if (set) ctx.cookie = String(Array.isArray(set) ? set[0] : set).split(';')[0];
+      ctx.cookie = setCookie(headers) || ctx.cookie;
     } },
 ];
 for (let i = 0; i < 8; i++) {
@@ -90,6 +95,20 @@ for (let i = 0; i < 8; i++) {
         return { ...req, path: `/api/walks/${walk.id}/steps/${walk.stepId}`, headers: jsonHeaders(ctx), body: JSON.stringify(state) };
       } },
   );
+}
+
+// Count answers per kind of request, so a failing part of the mix is named in the report.
+const statusByKind = new Map<string, Map<number, number>>();
+for (const [i, req] of cycle.entries()) {
+  const kind = i === 0 ? 'csrf' : i === 1 ? 'sign-in' : ['search', 'read case', 'save draft', 'mark step'][(i - 2) % 4]!;
+  const inner = req.onResponse;
+  req.onResponse = (status, body, ctx, headers) => {
+    const counts = statusByKind.get(kind) ?? new Map<number, number>();
+    counts.set(status, (counts.get(status) ?? 0) + 1);
+    statusByKind.set(kind, counts);
+    if (status >= 400 && (counts.get(status) ?? 0) <= 2 && process.env.BENCH_DEBUG) console.error(kind, status, body.slice(0, 200));
+    inner?.(status, body, ctx, headers);
+  };
 }
 
 console.log(`Mixed load: ${CONNECTIONS} connections for ${SECONDS} s against ${url} (${caseIds.length} cases to read)`);
@@ -111,6 +130,8 @@ const rows = [
   ['latency p99 (ms)', pct(99)],
   ['errors (connection + timeouts + non-2xx)', `${errors} (${result.errors} + ${result.timeouts} + ${result.non2xx})`],
 ];
+console.log('\n| request | answers |\n|---|---|');
+for (const [kind, counts] of statusByKind) console.log(`| ${kind} | ${[...counts].map(([s, n]) => `${n} x ${s}`).join(', ')} |`);
 console.log('\n| measure | value |\n|---|---|');
 for (const [k, v] of rows) console.log(`| ${k} | ${v} |`);
 process.exit(errors === 0 ? 0 : 1);
