@@ -65,7 +65,8 @@ const queries = ['misfire cyl 2 and 5 after timing work', 'P0171 lean bank 1', '
 type Ctx = { cookie?: string; token?: string; n?: number; email?: string };
 let connection = 0;
 /** The session cookie from a response; autocannon keeps raw header names, so match case-insensitively. */
-function setCookie(headers: Record<string, string | string[]>): string {
+function setCookie(headers: Record<string, string | string[] | undefined> | undefined): string {
+  if (!headers) return '';
   const key = Object.keys(headers).find((k) => k.toLowerCase() === 'set-cookie');
   const value = key ? headers[key] : undefined;
   return value ? String(Array.isArray(value) ? value[0] : value).split(';')[0]! : '';
@@ -101,7 +102,8 @@ for (let i = 0; i < 8; i++) {
 const statusByKind = new Map<string, Map<number, number>>();
 for (const [i, req] of cycle.entries()) {
   const kind = i === 0 ? 'csrf' : i === 1 ? 'sign-in' : ['search', 'read case', 'save draft', 'mark step'][(i - 2) % 4]!;
-  const inner = req.onResponse;
+  type OnResponse = (status: number, body: string, context: object, headers: Parameters<typeof setCookie>[0]) => void;
+  const inner = req.onResponse as OnResponse | undefined;
   req.onResponse = (status, body, ctx, headers) => {
     const counts = statusByKind.get(kind) ?? new Map<number, number>();
     counts.set(status, (counts.get(status) ?? 0) + 1);

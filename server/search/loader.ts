@@ -1,6 +1,7 @@
 // Reads what the search index needs from MariaDB: a shop's live cases in pages
 // (keyset by id, so a big shop never arrives as one huge result), one case on a
 // change, a shop's platforms, and the change log after a given id.
+import { platformFromRow } from '../platforms/service';
 import { and, asc, eq, gt, inArray, isNull, max } from 'drizzle-orm';
 import type { Db } from '../../db/client';
 import { cases, changeLog, platforms } from '../../db/schema';
@@ -69,20 +70,7 @@ export async function loadCases(db: Db, shopId: number, ids: number[]): Promise<
 
 export async function loadPlatforms(db: Db, shopId: number): Promise<Platform[]> {
   const rows = await db.select().from(platforms).where(eq(platforms.shopId, shopId));
-  return rows.map((p) => ({
-    id: p.id,
-    make: p.make,
-    model: p.model,
-    engine: p.engine,
-    yearFrom: p.yearFrom,
-    yearTo: p.yearTo,
-    cylinders: p.cylinders,
-    layout: p.layout,
-    ...(p.banks ? { banks: p.banks } : {}),
-    ...(p.firingOrder ? { firingOrder: p.firingOrder } : {}),
-    ...(p.fuel ? { fuel: p.fuel } : {}),
-    ...(p.induction ? { induction: p.induction } : {}),
-  }));
+  return rows.map((row) => platformFromRow(row) as Platform);
 }
 
 export interface Change {

@@ -1,22 +1,16 @@
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
-import type { Browser, Page } from 'playwright-core';
-import { DEMO_PASSWORD, readDemoShop } from '../../server/seed/demo-files';
-import { launchBrowser, openPage, screenshot, signInThroughUi, type ViewportName } from '../support/browser';
+import { describe, expect, inject, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import type { Role } from '../../shared/roles';
+import { demoPerson, openPage, signInAs, useBrowser, screenshot, type ViewportName } from '../support/browser';
 
 const baseUrl = inject('baseUrl');
-const demo = readDemoShop(new URL('../../content', import.meta.url).pathname);
-const person = (role: string) => demo.users.find((u) => u.role === role)!;
+const person = demoPerson;
 
-let browser: Browser;
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-afterAll(() => browser?.close());
+const getBrowser = useBrowser();
 
-async function signedIn(viewport: ViewportName, role: string) {
-  const watched = await openPage(browser, viewport, baseUrl);
-  await signInThroughUi(watched.page, person(role).email, DEMO_PASSWORD);
-  await watched.page.getByRole('navigation', { name: 'Main' }).waitFor();
+async function signedIn(viewport: ViewportName, role: Role) {
+  const watched = await openPage(getBrowser(), viewport, baseUrl);
+  await signInAs(watched.page, role);
   return watched;
 }
 

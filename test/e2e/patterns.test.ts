@@ -1,23 +1,20 @@
 import path from 'node:path';
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
-import type { Browser, Page } from 'playwright-core';
-import { DEMO_PASSWORD, readDemoShop } from '../../server/seed/demo-files';
-import { launchBrowser, openPage, SCREENSHOT_DIR, screenshot, signInThroughUi, VIEWPORTS, type ViewportName } from '../support/browser';
+import { beforeAll, describe, expect, inject, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import type { Role } from '../../shared/roles';
+import { demoPerson, openPage, signInAs, useBrowser, SCREENSHOT_DIR, screenshot, VIEWPORTS, type ViewportName } from '../support/browser';
 
 const baseUrl = inject('baseUrl');
-const demo = readDemoShop(new URL('../../content', import.meta.url).pathname);
-const person = (role: string) => demo.users.find((u) => u.role === role)!;
+const person = demoPerson;
 
-let browser: Browser;
+const getBrowser = useBrowser();
 beforeAll(async () => {
-  browser = await launchBrowser();
   // The first load after a fresh web build can be slow on a busy machine; warm it up once.
-  const { page, context } = await openPage(browser, 'phone', baseUrl);
+  const { page, context } = await openPage(getBrowser(), 'phone', baseUrl);
   await page.goto('/');
   await page.getByRole('button', { name: 'Sign in' }).waitFor({ timeout: 90_000 });
   await context.close();
 });
-afterAll(() => browser?.close());
 
 /** Elements that stick out past the right edge of the window (clipped labels, sideways scroll). */
 async function overflowing(page: Page): Promise<string[]> {
@@ -46,10 +43,9 @@ async function clippedCharts(page: Page): Promise<string[]> {
   );
 }
 
-async function openDashboard(viewport: ViewportName, role = 'manager') {
-  const watched = await openPage(browser, viewport, baseUrl);
-  await signInThroughUi(watched.page, person(role).email, DEMO_PASSWORD);
-  await watched.page.getByRole('navigation', { name: 'Main' }).waitFor();
+async function openDashboard(viewport: ViewportName, role: Role = 'manager') {
+  const watched = await openPage(getBrowser(), viewport, baseUrl);
+  await signInAs(watched.page, role);
   await watched.page.goto('/patterns');
   await watched.page.getByText('Confirmed-fix rate').waitFor();
   return watched;

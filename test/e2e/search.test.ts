@@ -1,22 +1,16 @@
 // The search home screen at phone and wide sizes over the demo shop.
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
-import type { Browser } from 'playwright-core';
-import { DEMO_PASSWORD, readDemoShop } from '../../server/seed/demo-files';
-import { launchBrowser, openPage, screenshot, signInThroughUi, VIEWPORTS, type ViewportName } from '../support/browser';
+import { describe, expect, inject, it } from 'vitest';
+import { DEMO_PASSWORD } from '../../server/seed/demo-files';
+import { demoPerson, openPage, useBrowser, screenshot, signInThroughUi, VIEWPORTS, type ViewportName } from '../support/browser';
 
 const baseUrl = inject('baseUrl');
-const demo = readDemoShop(new URL('../../content', import.meta.url).pathname);
-const senior = demo.users.find((u) => u.role === 'senior')!;
+const senior = demoPerson('senior');
 
-let browser: Browser;
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-afterAll(() => browser?.close());
+const getBrowser = useBrowser();
 
 describe.each(Object.keys(VIEWPORTS) as ViewportName[])('search home at %s size', (viewport) => {
   it('reads the query back as chips, ranks the case with its reasons, and drops a chip', async () => {
-    const { page, problems, context } = await openPage(browser, viewport, baseUrl);
+    const { page, problems, context } = await openPage(getBrowser(), viewport, baseUrl);
     await signInThroughUi(page, senior.email, DEMO_PASSWORD);
     await page.getByText('Search the shop’s cases').waitFor();
     await page.getByText("Try a code like P0302, or 'misfire cyl 2 and 5 after timing work'.").waitFor();
@@ -58,7 +52,7 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('search home at %s size'
   });
 
   it('filters by status from the sheet and keeps recent searches', async () => {
-    const { page, problems, context } = await openPage(browser, viewport, baseUrl);
+    const { page, problems, context } = await openPage(getBrowser(), viewport, baseUrl);
     await signInThroughUi(page, senior.email, DEMO_PASSWORD);
     const field = page.getByLabel('What is the car doing?');
     await field.fill('p0299');
