@@ -58,7 +58,8 @@ function absoluteTimeout(hours: number): RequestHandler {
   return (req, _res, next) => {
     const signedInAt = req.session?.signedInAt;
     if (signedInAt && Date.now() - signedInAt > hours * 3600_000) {
-      return req.session.destroy(() => next());
+      // A fresh, empty session replaces it (destroy would leave later middleware without one).
+      return req.session.regenerate((err) => next(err));
     }
     next();
   };
