@@ -19,6 +19,7 @@ import { AttachmentGallery, CaseFacts, CauseAndFix, CommentList, RepeatVisits } 
 import { dateTime, statusLabel } from './labels';
 import { RevisionHistory } from './revisions';
 import { TextField } from '../ui/text-field';
+import { BackLink } from '../ui/back-link';
 
 function CommentForm({ caseId, onAdded }: { caseId: number; onAdded: () => void }) {
   const t = useTheme();
@@ -51,9 +52,7 @@ function Header({ c }: { c: CaseDetail }) {
   const s = statusLabel[c.status];
   return (
     <View style={{ gap: t.space.sm }}>
-      <Link href={'/cases' as Href}>
-        <Text tone="tide" variant="small">‹ All cases</Text>
-      </Link>
+      <BackLink href={'/cases' as Href} label="All cases" />
       <Heading>{c.title}</Heading>
       <Row wrap>
         <Badge label={s.label} symbol={s.symbol} tone={s.tone} />

@@ -12,6 +12,7 @@ import { Card, Row, Screen } from '../ui/surfaces';
 import { Heading, Text } from '../ui/text';
 import { useCasesWithCode, useCodeDetail } from './api';
 import { DecodeTool } from './decode-tool';
+import { BackLink } from '../ui/back-link';
 
 /** Work on these systems can hurt: the caution names what, then defers to the maker's procedure. */
 function cautionFor(d: CodeDetail): string | null {
@@ -150,11 +151,7 @@ export function CodeScreen() {
   const bad = error instanceof ApiError && error.status === 400;
   return (
     <Screen>
-      <Link href="/codes">
-        <View style={{ minHeight: t.layout.touchTarget, justifyContent: 'center' }}>
-          <Text tone="tide">‹ All codes</Text>
-        </View>
-      </Link>
+      <BackLink href="/codes" label="All codes" />
       <Row wrap>
         <Heading>{data?.full ?? code ?? 'Code'}</Heading>
       </Row>

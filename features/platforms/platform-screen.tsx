@@ -1,5 +1,5 @@
 // One platform: banks and firing order in plain words, a cylinder checker, and editing for seniors.
-import { Link, useLocalSearchParams, type Href } from 'expo-router';
+import { useLocalSearchParams, type Href } from 'expo-router';
 import { useState } from 'react';
 import { View } from 'react-native';
 import { describeCylinders } from '../../shared/platform';
@@ -18,6 +18,7 @@ import { TextField } from '../ui/text-field';
 import { patchPlatform, usePlatform } from './api';
 import { fuelLabels, inductionLabels, layoutLabels, platformSummary, platformTitle } from './labels';
 import { PlatformForm } from './platform-form';
+import { BackLink } from '../ui/back-link';
 
 function Facts({ data }: { data: PlatformDetailResponse }) {
   const t = useTheme();
@@ -97,11 +98,7 @@ export function PlatformScreen() {
   const missing = error instanceof ApiError && (error.status === 404 || error.status === 400);
   return (
     <Screen>
-      <Link href={'/platforms' as Href}>
-        <View style={{ minHeight: t.layout.touchTarget, justifyContent: 'center' }}>
-          <Text tone="tide">‹ All platforms</Text>
-        </View>
-      </Link>
+      <BackLink href={'/platforms' as Href} label="All platforms" />
       {missing ? (
         <EmptyState title="No such platform" hint="It may have been removed, or the link belongs to another shop." />
       ) : (

@@ -10,6 +10,7 @@ import { Heading, Text } from '../ui/text';
 import { longDay, plural } from '../patterns/format';
 import { useVehicle } from './api';
 import { vehicleName } from './vehicles-screen';
+import { BackLink } from '../ui/back-link';
 
 const statusWords = { draft: 'Draft', review: 'In review', published: 'Published' } as const;
 
@@ -61,9 +62,7 @@ export function VehicleScreen() {
   const { data, error, mutate } = useVehicle(numeric);
   return (
     <Screen width="reading">
-      <Link href={'/vehicles' as Href}>
-        <Text tone="tide">‹ All vehicles</Text>
-      </Link>
+      <BackLink href={'/vehicles' as Href} label="All vehicles" />
       {numeric === null ? (
         <EmptyState title="No vehicle here" hint="That address does not name a vehicle." />
       ) : (
