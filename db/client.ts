@@ -32,6 +32,15 @@ export async function applyMigrations(db: Db) {
   await migrate(db, { migrationsFolder });
 }
 
+let commits = 0;
+
+/**
+ * How many transactions this process has committed through `transaction()`. Readers of
+ * the change log (search) compare it to skip a read when nothing was written here;
+ * writes from other processes reach them through their poll.
+ */
+export const committedTransactions = (): number => commits;
+
 const RETRYABLE = new Set(['ER_LOCK_DEADLOCK', 'ER_LOCK_WAIT_TIMEOUT']);
 
 /**
@@ -41,7 +50,9 @@ const RETRYABLE = new Set(['ER_LOCK_DEADLOCK', 'ER_LOCK_WAIT_TIMEOUT']);
 export async function transaction<T>(db: Db, work: (tx: Db) => Promise<T>, attempts = 4): Promise<T> {
   for (let attempt = 1; ; attempt++) {
     try {
-      return await db.transaction((tx) => work(tx as unknown as Db));
+      const result = await db.transaction((tx) => work(tx as unknown as Db));
+      commits++;
+      return result;
     } catch (err) {
       const code = (err as { cause?: { code?: string }; code?: string }).cause?.code ?? (err as { code?: string }).code;
       if (!code || !RETRYABLE.has(code) || attempt >= attempts) throw err;

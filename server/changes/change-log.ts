@@ -1,5 +1,6 @@
 // The change log: every write that search or other instances must notice adds a row here,
-// in the same transaction as the write. Instances follow it by id (see server/search).
+// in the same transaction as the write, run through db/client's transaction() (its commit
+// count tells this instance's search to read the log). Instances follow it by id (see server/search).
 import type { Db } from '../../db/client';
 import { changeLog } from '../../db/schema';
 

@@ -1,7 +1,7 @@
 // Platform records per shop: the engine facts diagnosis leans on (banks, firing order).
 import { and, asc, eq } from 'drizzle-orm';
 import type { z } from 'zod';
-import type { Db } from '../../db/client';
+import { transaction, type Db } from '../../db/client';
 import { platforms } from '../../db/schema';
 import { describeCylinders, firingCompanionPairs } from '../../shared/platform';
 import { platformCreateSchema, type PlatformDetailResponse, type PlatformPatch, type PlatformView } from '../../shared/schemas/platforms';
@@ -86,18 +86,18 @@ export async function getPlatform(ctx: AppContext, shopId: number, id: number): 
 }
 
 export async function createPlatform(ctx: AppContext, shopId: number, input: PlatformRecord): Promise<number> {
-  return ctx.db.transaction(async (tx) => {
+  return transaction(ctx.db, async (tx) => {
     const [row] = await tx.insert(platforms).values({ shopId, ...toColumns(input) }).$returningId();
     const id = row!.id;
-    await recordChange(tx as unknown as Db, shopId, 'platform', id);
+    await recordChange(tx, shopId, 'platform', id);
     return id;
   });
 }
 
 /** Merges the patch into the stored record and checks the whole record again (cross-field rules). */
 export async function updatePlatform(ctx: AppContext, shopId: number, id: number, patch: PlatformPatch): Promise<PlatformDetailResponse> {
-  await ctx.db.transaction(async (tx) => {
-    const { id: _id, ...current } = platformFromRow(await findRow(tx as unknown as Db, shopId, id));
+  await transaction(ctx.db, async (tx) => {
+    const { id: _id, ...current } = platformFromRow(await findRow(tx, shopId, id));
     const merged: Record<string, unknown> = { ...current };
     for (const [key, value] of Object.entries(patch)) {
       if (value === null) delete merged[key];
@@ -106,7 +106,7 @@ export async function updatePlatform(ctx: AppContext, shopId: number, id: number
     const checked = platformCreateSchema.safeParse(merged);
     if (!checked.success) throw badRequest('Some fields are not valid.', fieldsFromZod(checked.error));
     await tx.update(platforms).set(toColumns(checked.data)).where(and(eq(platforms.id, id), eq(platforms.shopId, shopId)));
-    await recordChange(tx as unknown as Db, shopId, 'platform', id);
+    await recordChange(tx, shopId, 'platform', id);
   });
   return getPlatform(ctx, shopId, id);
 }

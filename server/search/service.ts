@@ -1,8 +1,9 @@
 // Search for one app instance: an index per shop, built lazily in the
 // background, kept live by following the change log (server/changes).
-// Before answering, a search reads the log once (id > last seen, a primary-key
-// range), so a change made through any instance is found on the very next
-// search; a 500 ms poll keeps idle instances current too.
+// Before answering, a search reads the log (id > last seen, a primary-key range)
+// when this process has committed a transaction since the last read, so a change
+// made here is found on the very next search; a 500 ms poll brings in changes
+// made through other instances (and keeps idle ones current).
 import { performance } from 'node:perf_hooks';
 import { setImmediate as yieldToLoop } from 'node:timers/promises';
 import { parseDtc } from '../../shared/codes';
@@ -14,6 +15,7 @@ import { notFound } from '../http/errors';
 import { type Change, lastChangeId, loadCasePage, loadCases, loadChanges, loadPlatforms } from './loader';
 import { type IndexedCandidate, ShopIndex } from './shop-index';
 import type { RankedCase } from '../../shared/search';
+import { committedTransactions } from '../../db/client';
 import { shops } from '../../db/schema';
 
 export const POLL_MS = 500;
@@ -44,6 +46,8 @@ export interface SearchIndexStatus {
 export class SearchService {
   private shops = new Map<number, ShopState>();
   private lastSeen = 0;
+  /** committedTransactions() when the last log read started */
+  private commitsSeen = -1;
   private started: Promise<void>;
   private running: Promise<void> | null = null;
   private next: Promise<void> | null = null;
@@ -167,6 +171,7 @@ export class SearchService {
 
   private async followOnce() {
     await this.started;
+    this.commitsSeen = committedTransactions();
     for (;;) {
       const changes = await loadChanges(this.ctx.db, this.lastSeen);
       if (changes.length === 0) return;
@@ -201,7 +206,7 @@ export class SearchService {
   /** One search, as GET /api/search answers it. */
   async search(actor: Actor, query: SearchQuery): Promise<SearchResponse> {
     const t0 = performance.now();
-    await this.catchUp();
+    if (committedTransactions() !== this.commitsSeen) await this.catchUp();
     const state = this.shop(actor.shopId);
     const building = state.building;
     await state.ready;

@@ -4,11 +4,10 @@
 // A search first collects candidates from the postings and the text index
 // with a cheap additive score, keeps the best few hundred, and only those go
 // through the full explained ranking (shared/search/rank.ts).
-import MiniSearch, { type Query, type SearchOptions, type SearchResult as TextHit } from 'minisearch';
-import { classifyDtc, cylinderForMisfireCode, parseDtc } from '../../shared/codes';
+import { codeFacts } from '../../shared/search/code-facts';
 import { type Platform, platformSimilarity } from '../../shared/platform';
 import { canSeeCase, type Actor } from '../../shared/policy';
-import type { CaseStatus } from '../../shared/roles';
+import { caseStatuses, type CaseStatus } from '../../shared/roles';
 import {
   type CaseCandidate,
   type ParsedQuery,
@@ -19,7 +18,9 @@ import {
 } from '../../shared/search';
 import { expandTerm } from '../../shared/terms';
 import { kebabToWords, unique } from '../../shared/search/text';
-import { indexTerm, textDoc, type TextDoc, textIndexOptions, textSearchDefaults } from './text-fields';
+import { indexTerm, MATCH_WEIGHTS, TEXT_FIELDS, textFieldsOf } from './text-fields';
+import { MAX_GROUPS, TextIndex, type TextGroupQuery, type TextHit } from './text-index';
+import { TopK } from './top-k';
 
 export interface CaseRow {
   id: number;
@@ -78,9 +79,6 @@ export interface IndexResult {
 
 /** Candidates that go through the full ranking: enough that the cheap score's blind spots (banks, groups) cannot hide a top result. */
 const FULL_RANK_MIN = 100;
-/** A word in more than this share of a shop's notes is common (see textSearch). */
-const RARE_SHARE = 0.03;
-const RARE_MIN = 200;
 /** Text hits kept (best first): past a few hundred they only add noise and time. */
 const TEXT_HITS_MAX = 500;
 /** Below this many AND hits, and with no exact-key match, the text search falls back to OR. */
@@ -90,22 +88,8 @@ const W = SEARCH_WEIGHTS;
 const DAY_MS = 86_400_000;
 
 function groupKey(code: string): string | null {
-  const g = classifyDtc(code);
-  return g.group ? `group:${g.system}:${g.group}` : null;
-}
-
-interface CodeFacts { code: string; family: string; cyl: number | null; group: string | null }
-const CODE_FACTS = new Map<string, CodeFacts | null>();
-
-/** Parsed once per spelling: the same few hundred codes recur across a shop's cases. */
-function codeFacts(raw: string): CodeFacts | null {
-  let f = CODE_FACTS.get(raw);
-  if (f !== undefined) return f;
-  const r = parseDtc(raw);
-  f = r.ok ? { code: r.dtc.code, family: r.dtc.code.slice(0, 4), cyl: cylinderForMisfireCode(r.dtc.code), group: groupKey(r.dtc.code) } : null;
-  if (CODE_FACTS.size > 50_000) CODE_FACTS.clear();
-  CODE_FACTS.set(raw, f);
-  return f;
+  const g = codeFacts(code)?.group;
+  return g ? `group:${g}` : null;
 }
 
 const tagKey = (t: string): string => t.trim().toLowerCase().replace(/[\s_]+/g, '-');
@@ -118,8 +102,8 @@ function keysOf(c: { codes: string[]; symptoms: string[]; context: string[]; pla
     if (!f) continue;
     keys.add(`code:${f.code}`);
     keys.add(`family:${f.family}`);
-    if (f.cyl !== null) keys.add(`cyl:${f.cyl}`);
-    if (f.group) keys.add(f.group);
+    if (f.cylinder !== null) keys.add(`cyl:${f.cylinder}`);
+    if (f.group) keys.add(`group:${f.group}`);
   }
   for (const t of c.symptoms) keys.add(`tag:${tagKey(t)}`);
   for (const t of c.context) keys.add(`ctx:${tagKey(t)}`);
@@ -128,50 +112,57 @@ function keysOf(c: { codes: string[]; symptoms: string[]; context: string[]; pla
   return [...keys];
 }
 
-/** A small binary min-heap on score: the best `size` entries of a stream. */
-class TopK {
-  private slots: number[] = [];
-  private scores: number[] = [];
-  constructor(private readonly size: number) {}
-  push(slot: number, score: number) {
-    if (this.slots.length < this.size) {
-      this.slots.push(slot);
-      this.scores.push(score);
-      this.up(this.slots.length - 1);
-    } else if (score > (this.scores[0] ?? -Infinity)) {
-      this.slots[0] = slot;
-      this.scores[0] = score;
-      this.down(0);
-    }
+/** Recency decays from this instant: per-slot factors stay in range for centuries either side. */
+const EPOCH_MS = Date.UTC(2020, 0, 1);
+const HALF_LIFE_MS = W.recency.halfLifeDays * DAY_MS;
+const DRAFT = caseStatuses.indexOf('draft');
+
+/**
+ * Per-slot columns in typed arrays, for the loops that touch every candidate
+ * (tens of thousands for a common code): no object per case is read there.
+ */
+class SlotColumns {
+  status = new Uint8Array(1024);
+  author = new Int32Array(1024);
+  /** 0 = no platform (platform ids start at 1) */
+  platform = new Int32Array(1024);
+  /** fix confirmed x status weight */
+  quality = new Float64Array(1024);
+  /** 2^((updatedAt - EPOCH) / half-life): times 2^(-(now - EPOCH) / half-life) it is the recency decay */
+  growth = new Float64Array(1024);
+  /** the cheap candidate score of the current query */
+  points = new Float64Array(1024);
+
+  ensure(n: number) {
+    if (this.status.length >= n) return;
+    const size = Math.max(n, this.status.length * 2);
+    const grow = <T extends Uint8Array | Int32Array | Float64Array>(a: T, make: new (n: number) => T): T => {
+      const b = new make(size);
+      b.set(a);
+      return b;
+    };
+    this.status = grow(this.status, Uint8Array);
+    this.author = grow(this.author, Int32Array);
+    this.platform = grow(this.platform, Int32Array);
+    this.quality = grow(this.quality, Float64Array);
+    this.growth = grow(this.growth, Float64Array);
+    this.points = grow(this.points, Float64Array);
   }
-  items(): number[] {
-    return this.slots;
+
+  set(slot: number, d: Doc) {
+    this.ensure(slot + 1);
+    this.status[slot] = caseStatuses.indexOf(d.status);
+    this.author[slot] = d.authorId;
+    this.platform[slot] = d.platformId ?? 0;
+    this.quality[slot] = (d.fixConfirmed ? W.fixConfirmed : 1) * (W.status[d.status] ?? 1);
+    this.growth[slot] = 2 ** ((d.updatedAt.getTime() - EPOCH_MS) / HALF_LIFE_MS);
   }
-  private swap(a: number, b: number) {
-    [this.slots[a], this.slots[b]] = [this.slots[b]!, this.slots[a]!];
-    [this.scores[a], this.scores[b]] = [this.scores[b]!, this.scores[a]!];
-  }
-  private up(i: number) {
-    while (i > 0) {
-      const p = (i - 1) >> 1;
-      if (this.scores[p]! <= this.scores[i]!) return;
-      this.swap(i, p);
-      i = p;
-    }
-  }
-  private down(i: number) {
-    const n = this.scores.length;
-    for (;;) {
-      const l = 2 * i + 1;
-      const r = l + 1;
-      let m = i;
-      if (l < n && this.scores[l]! < this.scores[m]!) m = l;
-      if (r < n && this.scores[r]! < this.scores[m]!) m = r;
-      if (m === i) return;
-      this.swap(i, m);
-      i = m;
-    }
-  }
+}
+
+/** A text hit of the current query: its score and the groups (typed words) it matched. */
+interface SlotHit {
+  score: number;
+  groups: number;
 }
 
 export class ShopIndex {
@@ -179,18 +170,9 @@ export class ShopIndex {
   private slotOf = new Map<number, number>();
   private freeSlots: number[] = [];
   private postings = new Map<string, Set<number>>();
-  /** how often each index term occurs: known words need no fuzzy search, very common ones narrow nothing */
-  private vocab = new Map<string, number>();
-  private text = new MiniSearch<TextDoc>({
-    ...textIndexOptions,
-    processTerm: (word) => {
-      const term = indexTerm(word);
-      if (term) this.vocab.set(term, (this.vocab.get(term) ?? 0) + 1);
-      return term;
-    },
-  });
+  private columns = new SlotColumns();
+  private text = new TextIndex(TEXT_FIELDS, indexTerm, MATCH_WEIGHTS);
   private tagCache: string[] | null = null;
-  private acc = new Float64Array(1024);
   platforms: Platform[] = [];
 
   constructor(readonly shopId: number) {}
@@ -211,19 +193,13 @@ export class ShopIndex {
 
   /** Adds many cases at once (the initial build); rows already present are replaced. */
   addMany(rows: CaseRow[]) {
-    const fresh: TextDoc[] = [];
-    for (const row of rows) {
-      if (this.slotOf.has(row.id)) this.remove(row.id);
-      this.addDoc(row);
-      fresh.push(textDoc(row));
-    }
-    this.text.addAll(fresh);
+    for (const row of rows) this.upsert(row);
   }
 
   upsert(row: CaseRow) {
     if (this.slotOf.has(row.id)) this.remove(row.id);
-    this.addDoc(row);
-    this.text.add(textDoc(row));
+    const slot = this.addDoc(row);
+    this.text.add(slot, textFieldsOf(row));
   }
 
   remove(caseId: number) {
@@ -238,16 +214,16 @@ export class ShopIndex {
         if (k.startsWith('tag:')) this.tagCache = null;
       }
     }
+    this.text.remove(slot);
     this.docs[slot] = undefined;
     this.slotOf.delete(caseId);
     this.freeSlots.push(slot);
-    this.text.discard(caseId);
   }
 
-  private addDoc(row: CaseRow) {
+  private addDoc(row: CaseRow): number {
     const slot = this.freeSlots.pop() ?? this.docs.length;
     const keys = keysOf(row);
-    this.docs[slot] = {
+    const doc: Doc = {
       id: row.id,
       title: row.title,
       codes: row.codes,
@@ -260,6 +236,8 @@ export class ShopIndex {
       updatedAt: row.updatedAt,
       keys,
     };
+    this.docs[slot] = doc;
+    this.columns.set(slot, doc);
     this.slotOf.set(row.id, slot);
     for (const k of keys) {
       let set = this.postings.get(k);
@@ -270,38 +248,32 @@ export class ShopIndex {
       }
       set.add(slot);
     }
-    if (this.acc.length < this.docs.length) {
-      const grown = new Float64Array(Math.max(this.docs.length, this.acc.length * 2));
-      this.acc = grown;
-    }
-  }
-
-  private posting(key: string): Set<number> | undefined {
-    return this.postings.get(key);
+    return slot;
   }
 
   /** The ranked, visible cases for a query. */
   search(q: IndexSearch): IndexResult {
     const touched: number[] = [];
-    const acc = this.acc;
+    const points = this.columns.points;
     const add = (slot: number, pts: number) => {
-      if (acc[slot] === 0) touched.push(slot);
-      acc[slot] = (acc[slot] ?? 0) + pts;
+      if (pts <= 0) return;
+      if (points[slot] === 0) touched.push(slot);
+      points[slot]! += pts;
     };
     try {
-      const text = this.collect(q, add, touched);
-      return this.rank(q, touched, text);
+      const { hits, groups } = this.collect(q, add, touched);
+      return this.rank(q, touched, hits, groups);
     } finally {
-      for (const s of touched) acc[s] = 0;
+      for (const s of touched) points[s] = 0;
     }
   }
 
-  /** Adds cheap candidate points from postings and text; returns the text hits by case id. */
-  private collect(q: IndexSearch, add: (slot: number, pts: number) => void, touched: number[]): Map<number, TextHit> {
+  /** Adds cheap candidate points from postings and text; returns the text hits by slot. */
+  private collect(q: IndexSearch, add: (slot: number, pts: number) => void, touched: number[]) {
     const { parsed } = q;
     const sk = structuredKeys(parsed);
     const addAll = (key: string, pts: number) => {
-      const set = this.posting(key);
+      const set = this.postings.get(key);
       if (set) for (const s of set) add(s, pts);
     };
     if (sk.codes.length) {
@@ -315,36 +287,31 @@ export class ShopIndex {
     for (const t of sk.tags) addAll(`tag:${t}`, W.symptom / sk.tags.length);
     for (const t of sk.context) addAll(`ctx:${t}`, W.context / sk.context.length);
 
-    const structured = touched.length > 0;
-    const hits = this.textSearch(parsed, false, !structured).slice(0, TEXT_HITS_MAX);
-    const best = hits.reduce((m, h) => Math.max(m, h.score), 0);
-    const byId = new Map<number, TextHit>();
-    for (const h of hits) {
-      const slot = this.slotOf.get(h.id as number);
-      if (slot === undefined) continue;
-      byId.set(h.id as number, h);
-      add(slot, (W.text * h.score) / best);
-    }
+    const hits = new Map<number, SlotHit>();
+    const addText = (found: TextHit[], share: number, onlyNew: boolean) => {
+      const best = found[0]?.score ?? 0;
+      for (const h of found) {
+        // the recall net adds only cases the exact keys missed: a tagged case needs no word match on its own tag
+        if (onlyNew && (hits.has(h.slot) || this.columns.points[h.slot] !== 0)) continue;
+        hits.set(h.slot, { score: (h.score / best) * share, groups: h.groups });
+        add(h.slot, W.text * (h.score / best) * share);
+      }
+    };
+    const groups = textGroups(parsed, false);
+    addText(this.textSearch(groups, touched.length === 0), 1, false);
 
     // Recall nets, only when the precise keys found too little.
     if (touched.length < q.limit && sk.codes.length) {
       const per = W.code.points / sk.codes.length;
       for (const g of unique(sk.codes.map(groupKey).filter((x): x is string => x !== null))) addAll(g, per * W.code.group * 0.5);
     }
+    const withTags = textGroups(parsed, true);
     if (touched.length < q.limit && parsed.tags.length) {
-      const more = this.textSearch(parsed, true).slice(0, TEXT_HITS_MAX);
-      const top = more.reduce((m, h) => Math.max(m, h.score), 0);
-      for (const h of more) {
-        const slot = this.slotOf.get(h.id as number);
-        // only for cases the exact keys missed: a tagged case needs no word match on its own tag
-        if (slot === undefined || byId.has(h.id as number) || this.acc[slot] !== 0) continue;
-        byId.set(h.id as number, h);
-        add(slot, (W.text * h.score) / top / 2);
-      }
+      addText(this.text.search(this.groupQueries(withTags, false), 'OR', TEXT_HITS_MAX), 0.5, true);
     }
     const nothingTyped = !parsed.words.length && !sk.codes.length && !sk.tags.length && !sk.context.length && !sk.cylinders.length;
     if (touched.length === 0 && nothingTyped) this.seedFromFilters(q, add);
-    return byId;
+    return { hits, groups: withTags };
   }
 
   /** Nothing in the text to go on: the platform or the filters alone choose the cases. */
@@ -355,59 +322,49 @@ export class ShopIndex {
     else if (q.filters.tag) keys.push(`tag:${q.filters.tag}`, `ctx:${q.filters.tag}`);
     else if (q.filters.status) keys.push(`status:${q.filters.status}`);
     for (const k of keys) {
-      const set = this.posting(k);
+      const set = this.postings.get(k);
       if (set) for (const s of set) add(s, 1);
     }
   }
 
   /**
    * Text query: each typed word (with its J1930 synonyms) must match; OR when that
-   * finds too little. Fuzzy only for words the index does not know (likely typos),
-   * prefix only for the last word when it is not a whole known word (still being typed).
-   * Common words (in more than 3 % of the notes) cost the most (minisearch scores
-   * every note that has them) and narrow little: they are left out when rarer words
-   * are there, and only the rarest is used when every word is common.
+   * finds too little and no exact key matched. Fuzzy only for words the index does
+   * not know (likely typos), prefix only for the last word when it is not a whole
+   * known word (still being typed).
    */
-  private textSearch(parsed: ParsedQuery, withTagWords: boolean, orFallback = true): TextHit[] {
-    const all = textGroups(parsed, withTagWords);
-    if (all.length === 0) return [];
+  private textSearch(groups: TextGroup[], orFallback: boolean): TextHit[] {
+    if (groups.length === 0) return [];
+    const queries = this.groupQueries(groups, true);
+    const hits = this.text.search(queries, 'AND', TEXT_HITS_MAX);
+    if (!orFallback || hits.length >= AND_FALLBACK_BELOW || groups.length < 2) return hits;
+    return this.text.search(queries, 'OR', TEXT_HITS_MAX);
+  }
+
+  private groupQueries(groups: TextGroup[], prefixLast: boolean): TextGroupQuery[] {
     const known = (w: string) => {
       const t = indexTerm(w);
-      return t !== null && this.vocab.has(t);
+      return t !== null && this.text.knows(t);
     };
-    const freq = (g: TextGroup) => g.words.reduce((n, w) => n + (this.vocab.get(indexTerm(w) ?? '') ?? 0), 0);
-    const rare = all.filter((g) => freq(g) <= Math.max(RARE_MIN, this.size * RARE_SHARE));
-    // every word common: the rarest one alone narrows as well as all of them, at a fraction of the cost
-    const rarest = [...all].sort((a, b) => freq(a) - freq(b))[0]!;
-    const groups = rare.length ? rare : [rarest];
-    const last = all[all.length - 1];
-    const options: SearchOptions = {
-      ...textSearchDefaults,
-      fuzzy: (term) => (term.length >= 5 && !this.vocab.has(term) ? 0.2 : false),
-    };
-    const build = (combineWith: 'AND' | 'OR'): Query => ({
-      combineWith,
-      queries: groups.map((g) => ({
-        combineWith: 'OR',
-        queries: g.words,
-        prefix: g === last && !withTagWords && !g.words.some(known) ? (term: string) => term.length >= 3 : false,
-      })),
-    });
-    if (withTagWords) return this.text.search(build('OR'), options);
-    const hits = this.text.search(build('AND'), options);
-    if (!orFallback || hits.length >= AND_FALLBACK_BELOW || groups.length < 2) return hits;
-    return this.text.search(build('OR'), options);
+    const fuzzy = (term: string) => (term.length >= 5 && !this.text.knows(term) ? 0.2 : false);
+    const typing = (term: string) => term.length >= 3;
+    return groups.map((g, i) => ({
+      words: g.words,
+      fuzzy,
+      prefix: prefixLast && i === groups.length - 1 && !g.words.some(known) ? typing : undefined,
+    }));
   }
 
-  private quality(doc: Doc, now: number): number {
-    const age = Math.max(0, (now - doc.updatedAt.getTime()) / DAY_MS);
-    const recency = W.recency.floor + (1 - W.recency.floor) * 0.5 ** (age / W.recency.halfLifeDays);
-    return (doc.fixConfirmed ? W.fixConfirmed : 1) * (W.status[doc.status] ?? 1) * recency;
+  /** Points for each platform id against the platform the query is about (index = platform id). */
+  private platformPoints(query: Platform | null): Float64Array {
+    const points = new Float64Array(query ? Math.max(0, ...this.platforms.map((p) => p.id)) + 1 : 1);
+    if (!query) return points;
+    for (const p of this.platforms) points[p.id] = Math.max(0, W.platform[platformSimilarity(query, p).level]);
+    return points;
   }
 
-  private passes(doc: Doc, q: IndexSearch): boolean {
-    const f = q.filters;
-    if (!canSeeCase(q.actor, doc)) return false;
+  /** Filters a caller chose (status, platform, code, tag): only these need the case's record. */
+  private passesFilters(doc: Doc, f: SearchFilters): boolean {
     if (f.status && doc.status !== f.status) return false;
     if (f.platformId && doc.platformId !== f.platformId) return false;
     if (f.code && !doc.keys.includes(`code:${f.code}`)) return false;
@@ -415,33 +372,32 @@ export class ShopIndex {
     return true;
   }
 
-  private platformPoints(query: Platform | null): Map<number, number> {
-    const points = new Map<number, number>();
-    if (!query) return points;
-    for (const p of this.platforms) {
-      const pts = W.platform[platformSimilarity(query, p).level];
-      if (pts > 0) points.set(p.id, pts);
-    }
-    return points;
-  }
-
-  private rank(q: IndexSearch, touched: number[], text: Map<number, TextHit>): IndexResult {
-    const now = q.now.getTime();
+  /** The best candidates by cheap score x quality, among those the caller may see. */
+  private shortlist(q: IndexSearch, touched: number[]): { slots: number[]; total: number } {
+    const { status, platform, points, quality, growth } = this.columns;
     const platformPts = this.platformPoints(q.platform);
+    const decayNow = 2 ** (-(q.now.getTime() - EPOCH_MS) / HALF_LIFE_MS);
+    const floor = W.recency.floor;
+    const filtered = Boolean(q.filters.status || q.filters.platformId || q.filters.code || q.filters.tag);
+    // the policy's answer for someone else's draft holds for every draft but the caller's own
+    const seesAllDrafts = canSeeCase(q.actor, { status: 'draft', authorId: -1 });
     const top = new TopK(Math.max(FULL_RANK_MIN, q.limit * 5));
     let total = 0;
     for (const slot of touched) {
-      const doc = this.docs[slot];
-      if (!doc || !this.passes(doc, q)) continue;
+      if (status[slot] === DRAFT && !seesAllDrafts && !canSeeCase(q.actor, this.docs[slot]!)) continue;
+      if (filtered && !this.passesFilters(this.docs[slot]!, q.filters)) continue;
       total++;
-      const pts = (this.acc[slot] ?? 0) + (doc.platformId !== null ? (platformPts.get(doc.platformId) ?? 0) : 0);
-      top.push(slot, pts * this.quality(doc, now));
+      const score = (points[slot]! + (platformPts[platform[slot]!] ?? 0)) * quality[slot]! * (floor + (1 - floor) * Math.min(1, decayNow * growth[slot]!));
+      if (top.accepts(score)) top.push(slot, score);
     }
-    const best = text.size ? Math.max(...[...text.values()].map((h) => h.score)) : 1;
-    const typed = typedWordOf(q.parsed);
-    const candidates: IndexedCandidate[] = top.items().map((slot) => {
+    return { slots: top.items(), total };
+  }
+
+  private rank(q: IndexSearch, touched: number[], text: Map<number, SlotHit>, groups: TextGroup[]): IndexResult {
+    const { slots, total } = this.shortlist(q, touched);
+    const candidates: IndexedCandidate[] = slots.map((slot) => {
       const d = this.docs[slot]!;
-      const hit = text.get(d.id);
+      const hit = text.get(slot);
       return {
         id: d.id,
         title: d.title,
@@ -453,8 +409,8 @@ export class ShopIndex {
         status: d.status,
         fixConfirmed: d.fixConfirmed,
         updatedAt: d.updatedAt,
-        textScore: hit ? hit.score / best : 0,
-        matchedWords: hit ? matchedWords(hit, typed) : undefined,
+        textScore: hit ? hit.score : 0,
+        matchedWords: hit ? matchedWords(hit.groups, groups) : undefined,
       };
     });
     const ranked = rankCases(q.parsed, candidates, { platform: q.platform, now: q.now });
@@ -465,21 +421,9 @@ export class ShopIndex {
   }
 }
 
-/** Index term -> the word the tech typed (synonyms and tag words map back to it). */
-function typedWordOf(parsed: ParsedQuery): Map<string, string> {
-  const out = new Map<string, string>();
-  for (const g of textGroups(parsed, true)) {
-    for (const w of g.words) {
-      const term = indexTerm(w);
-      if (term && !out.has(term)) out.set(term, g.shown);
-    }
-  }
-  return out;
-}
-
-/** The words a text hit matched, as the tech typed them. */
-function matchedWords(hit: TextHit, typed: Map<string, string>): string[] {
-  return unique(hit.queryTerms.map((t) => typed.get(t) ?? t)).slice(0, 5);
+/** The words a text hit matched, as the tech typed them (group i is bit i). */
+function matchedWords(mask: number, groups: TextGroup[]): string[] {
+  return groups.filter((_, i) => mask & (1 << i)).map((g) => g.shown).slice(0, 5);
 }
 
 export interface TextGroup {
@@ -524,6 +468,6 @@ export function textGroups(parsed: ParsedQuery, withTagWords: boolean): TextGrou
   ].sort((a, b) => a.at - b.at);
   for (const it of items) push(it.shown, it.words);
   if (withTagWords) for (const tag of parsed.tags) push(kebabToWords(tag), kebabToWords(tag).split(' '));
-  // a query of many words: the first 8 carry the meaning, the rest only cost time
-  return groups.slice(0, 8);
+  // a query of many words: the first few carry the meaning, the rest only cost time
+  return groups.slice(0, MAX_GROUPS);
 }

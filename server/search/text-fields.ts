@@ -3,7 +3,7 @@
 // and 760 MiB (docs/performance.md). A case's title, root cause and fix go in
 // whole; from the body only its most frequent content words (a bounded set).
 // Tags are exact keys (shop-index.ts), not text.
-import type { Options, SearchOptions } from 'minisearch';
+import type { MatchWeights, TextField } from './text-index';
 import { STOP_WORDS, stem } from '../../shared/search/text';
 
 /** Body words kept per case; enough for the words a note keeps coming back to. */
@@ -47,35 +47,16 @@ export function bodyTerms(body: string, max = BODY_TERMS_PER_CASE): string {
     .join(' ');
 }
 
-export interface TextDoc {
-  id: number;
-  title: string;
-  notes: string;
+/** The text fields of a case, in TEXT_FIELDS order. */
+export function textFieldsOf(c: { title: string; body: string; rootCause: string | null; fix: string | null }): string[] {
+  return [c.title, [c.rootCause ?? '', c.fix ?? '', bodyTerms(c.body)].join(' ')];
 }
 
-export function textDoc(c: { id: number; title: string; body: string; rootCause: string | null; fix: string | null; symptoms: string[]; context: string[] }): TextDoc {
-  return {
-    id: c.id,
-    title: c.title,
-    notes: [c.rootCause ?? '', c.fix ?? '', bodyTerms(c.body)].join(' '),
-  };
-}
+/** A word in the title counts twice a word in the notes. */
+export const TEXT_FIELDS: readonly TextField[] = [
+  { name: 'title', boost: 2 },
+  { name: 'notes', boost: 1 },
+];
 
-export const TEXT_FIELDS = ['title', 'notes'] as const;
-
-export const textIndexOptions: Options<TextDoc> = {
-  fields: [...TEXT_FIELDS],
-  storeFields: [],
-  processTerm: (term) => indexTerm(term),
-};
-
-/** Fuzzy only where it pays: one typo in words of 5+ letters, none in short words (too many near neighbours). */
-export const fuzzyOf = (term: string): number | false => (term.length >= 5 ? 0.2 : false);
-
-export const textSearchDefaults: SearchOptions = {
-  boost: { title: 2, notes: 1 },
-  fuzzy: fuzzyOf,
-  prefix: false,
-  weights: { fuzzy: 0.45, prefix: 0.4 },
-  processTerm: (term) => indexTerm(term),
-};
+/** A prefix or one-typo match counts a little under half an exact one. */
+export const MATCH_WEIGHTS: MatchWeights = { fuzzy: 0.45, prefix: 0.4 };

@@ -1,6 +1,7 @@
 // Explained ranking: each case gets a score and the reasons for it, in words
 // a tech reads at a glance ("both misfire codes P0302 P0305", "same engine VT27").
-import { classifyDtc, cylinderForMisfireCode, dtcFamily, isMisfireCode, parseDtc } from '../codes';
+import { isMisfireCode } from '../codes';
+import { type CodeFacts, codeFacts } from './code-facts';
 import { banksOfCylinders, type Platform, platformSimilarity } from '../platform';
 import { contextLabel, type ParsedQuery } from './query';
 import { kebabToWords, unique, wordsMatch } from './text';
@@ -35,20 +36,15 @@ interface Part { points: number; why: string | null }
 
 const DAY_MS = 86_400_000;
 
-/** Valid codes only, 5 characters: case data may hold anything. */
-function cleanCodes(codes: readonly string[]): string[] {
-  const out: string[] = [];
+/** Facts of the valid codes only, each once: case data may hold anything. */
+function cleanCodes(codes: readonly string[]): CodeFacts[] {
+  const out: CodeFacts[] = [];
   for (const c of codes) {
-    const r = parseDtc(c);
-    if (r.ok && !out.includes(r.dtc.code)) out.push(r.dtc.code);
+    const f = codeFacts(c);
+    if (f && !out.some((o) => o.code === f.code)) out.push(f);
   }
   return out;
 }
-
-const groupOf = (code: string): string | null => {
-  const g = classifyDtc(code);
-  return g.group ? `${g.system}:${g.group}` : null;
-};
 
 const listWords = (xs: string[]): string =>
   xs.length <= 1 ? xs.join('') : `${xs.slice(0, -1).join(', ')} and ${xs[xs.length - 1]}`;
@@ -61,15 +57,15 @@ function exactWhy(exact: string[]): string {
   return `${all} ${kind}s ${exact.join(' ')}`;
 }
 
-function codePart(queryCodes: string[], caseCodes: string[], w: SearchWeights): Part[] {
+function codePart(queryCodes: CodeFacts[], caseCodes: CodeFacts[], w: SearchWeights): Part[] {
   if (queryCodes.length === 0 || caseCodes.length === 0) return [];
   const exact: string[] = [];
   const families: string[] = [];
   const groups: string[] = [];
   for (const q of queryCodes) {
-    if (caseCodes.includes(q)) exact.push(q);
-    else if (caseCodes.some((c) => dtcFamily(c) === dtcFamily(q))) families.push(`${dtcFamily(q)}x`);
-    else if (groupOf(q) !== null && caseCodes.some((c) => groupOf(c) === groupOf(q))) groups.push(classifyDtc(q).groupLabel ?? '');
+    if (caseCodes.some((c) => c.code === q.code)) exact.push(q.code);
+    else if (caseCodes.some((c) => c.family === q.family)) families.push(`${q.family}x`);
+    else if (q.group !== null && caseCodes.some((c) => c.group === q.group)) groups.push(q.groupLabel ?? '');
   }
   // points per query code, so a query with many codes does not outweigh everything else
   const per = w.code.points / queryCodes.length;
@@ -84,8 +80,8 @@ function codePart(queryCodes: string[], caseCodes: string[], w: SearchWeights): 
   return parts;
 }
 
-function caseCylinders(caseCodes: string[]): number[] {
-  return caseCodes.map(cylinderForMisfireCode).filter((n): n is number => n !== null);
+function caseCylinders(caseCodes: CodeFacts[]): number[] {
+  return caseCodes.map((c) => c.cylinder).filter((n): n is number => n !== null);
 }
 
 function cylinderPart(parsed: ParsedQuery, caseCyls: number[], w: SearchWeights): Part[] {
@@ -112,7 +108,17 @@ function bankPart(parsed: ParsedQuery, c: CaseCandidate, caseCyls: number[], que
   return [];
 }
 
-const norm = (s: string): string => s.trim().toLowerCase().replace(/[\s_]+/g, '-');
+const NORMS = new Map<string, string>();
+/** 'Rough idle' and 'rough_idle' are the tag 'rough-idle'; a shop's few hundred tags are normalised once. */
+function norm(s: string): string {
+  let n = NORMS.get(s);
+  if (n === undefined) {
+    n = s.trim().toLowerCase().replace(/[\s_]+/g, '-');
+    if (NORMS.size >= 10_000) NORMS.clear();
+    NORMS.set(s, n);
+  }
+  return n;
+}
 
 function overlap(query: string[], caseTags: string[]): string[] {
   const have = new Set(caseTags.map(norm));
@@ -177,8 +183,16 @@ function recencyFactor(age: number | null, w: SearchWeights): number {
   return w.recency.floor + (1 - w.recency.floor) * decay;
 }
 
-function queryCodesOf(parsed: ParsedQuery): string[] {
-  return cleanCodes([...parsed.codes, ...parsed.impliedCodes]);
+const QUERY_CODES = new WeakMap<ParsedQuery, CodeFacts[]>();
+
+/** The query's typed and implied codes, worked out once per query rather than per candidate. */
+function queryCodesOf(parsed: ParsedQuery): CodeFacts[] {
+  let codes = QUERY_CODES.get(parsed);
+  if (!codes) {
+    codes = cleanCodes([...parsed.codes, ...parsed.impliedCodes]);
+    QUERY_CODES.set(parsed, codes);
+  }
+  return codes;
 }
 
 /** Score of one case for a parsed query, with the reasons, strongest first. */
