@@ -19,7 +19,7 @@ import { patternRoutes } from './patterns/routes';
 import { vehicleRoutes } from './vehicles/routes';
 import { userRoutes } from './users/routes';
 import { searchRoutes } from './search/routes';
-import { stopSearch } from './search/service';
+import { stopSearch } from './search/client';
 import { walkRoutes } from './walks/routes';
 import { treeRoutes } from './trees/routes';
 import { codeRoutes, vinRoutes } from './codes/routes';
@@ -109,7 +109,7 @@ export function createApp({ ctx, pool, sessionSecret }: AppOptions): CausewayApp
   app.use(errorHandler(ctx.log));
   return Object.assign(app, {
     shutdown: async () => {
-      stopSearch(ctx);
+      await stopSearch(ctx);
       await sessionStore.close();
     },
   });

@@ -21,7 +21,7 @@ import { hashPassword } from '../auth/passwords';
 import { loadConfig } from '../config';
 import type { AppContext } from '../context';
 import { createMailer } from '../mail/mailer';
-import { searchServiceFor } from '../search/service';
+import { SearchService } from '../search/service';
 import { readDemoPlatforms } from '../seed/demo-files';
 import { BENCH_QUERIES, generateCase, mulberry32 } from '../search/bench-corpus';
 
@@ -243,7 +243,7 @@ async function main() {
 
   // (b) Causeway's index
   const heap0 = heapMiB();
-  const service = searchServiceFor(ctx, { warm: false });
+  const service = new SearchService(ctx, { warm: false });
   const tb = performance.now();
   await service.shop(shop!.id).ready;
   const buildB = (performance.now() - tb) / 1000;

@@ -3,11 +3,11 @@ import { searchQuerySchema } from '../../shared/schemas/search';
 import type { AppContext } from '../context';
 import { can } from '../http/guard';
 import { valid, validate } from '../http/validate';
-import { searchServiceFor } from './service';
+import { searchClientFor } from './client';
 
 export function searchRoutes(ctx: AppContext) {
   const r = Router();
-  const search = searchServiceFor(ctx);
+  const search = searchClientFor(ctx);
 
   r.get('/search', can('search.read'), validate('query', searchQuerySchema), async (req, res) => {
     res.json(await search.search(req.user!, valid(req, 'query', searchQuerySchema)));

@@ -11,11 +11,11 @@ import type { Actor } from '../../shared/policy';
 import { CONTEXT_TAGS, parseQuery, removableChips, structuredKeys } from '../../shared/search';
 import type { SearchQuery, SearchResponse, SearchResult } from '../../shared/schemas/search';
 import type { AppContext } from '../context';
+import { committedTransactions } from '../../db/client';
 import { notFound } from '../http/errors';
 import { type Change, lastChangeId, loadCasePage, loadCases, loadChanges, loadPlatforms } from './loader';
 import { type IndexedCandidate, ShopIndex } from './shop-index';
 import type { RankedCase } from '../../shared/search';
-import { committedTransactions } from '../../db/client';
 import { shops } from '../../db/schema';
 
 export const POLL_MS = 500;
@@ -34,6 +34,18 @@ type ShopState = {
   builtMs: number | null;
   error: string | null;
 };
+
+/** What the service needs of the app: the database and a log. */
+export type SearchContext = Pick<AppContext, 'db' | 'log'>;
+
+export interface SearchServiceOptions {
+  /** build every shop's index at start (default true) */
+  warm?: boolean;
+  /** follow the change log every POLL_MS (default true) */
+  poll?: boolean;
+  /** transactions committed by the app this service answers for (default: this thread's) */
+  commitCount?: () => number;
+}
 
 export interface SearchIndexStatus {
   state: 'starting' | 'building' | 'ready' | 'error' | 'stopped';
@@ -55,10 +67,13 @@ export class SearchService {
   private stopped = false;
   private failed: string | null = null;
 
+  private readonly commitCount: () => number;
+
   constructor(
-    private readonly ctx: AppContext,
-    options: { warm?: boolean; poll?: boolean } = {},
+    private readonly ctx: SearchContext,
+    options: SearchServiceOptions = {},
   ) {
+    this.commitCount = options.commitCount ?? committedTransactions;
     // the log position is read before any shop is built, so no change can fall between
     this.started = lastChangeId(ctx.db).then((id) => {
       this.lastSeen = id;
@@ -171,7 +186,7 @@ export class SearchService {
 
   private async followOnce() {
     await this.started;
-    this.commitsSeen = committedTransactions();
+    this.commitsSeen = this.commitCount();
     for (;;) {
       const changes = await loadChanges(this.ctx.db, this.lastSeen);
       if (changes.length === 0) return;
@@ -206,7 +221,7 @@ export class SearchService {
   /** One search, as GET /api/search answers it. */
   async search(actor: Actor, query: SearchQuery): Promise<SearchResponse> {
     const t0 = performance.now();
-    if (committedTransactions() !== this.commitsSeen) await this.catchUp();
+    if (this.commitCount() !== this.commitsSeen) await this.catchUp();
     const state = this.shop(actor.shopId);
     const building = state.building;
     await state.ready;
@@ -284,26 +299,3 @@ function toResult(r: RankedCase<IndexedCandidate>, index: ShopIndex): SearchResu
   };
 }
 
-// One service per app instance (per AppContext): two createApp calls are two instances.
-const services = new WeakMap<AppContext, SearchService>();
-
-export function searchServiceFor(ctx: AppContext, options?: { warm?: boolean; poll?: boolean }): SearchService {
-  let s = services.get(ctx);
-  if (!s) {
-    s = new SearchService(ctx, options);
-    services.set(ctx, s);
-  }
-  return s;
-}
-
-/** For /api/health: the index state of this instance, or 'starting' before the first router is made. */
-export function searchIndexStatus(ctx: AppContext): SearchIndexStatus {
-  return (
-    services.get(ctx)?.status() ?? { state: 'starting', shops: { ready: 0, building: 0 }, cases: 0, lastChangeId: 0, buildMs: null }
-  );
-}
-
-/** Stops the change-log poll (app shutdown). */
-export function stopSearch(ctx: AppContext) {
-  services.get(ctx)?.stop();
-}

@@ -20,6 +20,7 @@ import { expandTerm } from '../../shared/terms';
 import { kebabToWords, unique } from '../../shared/search/text';
 import { indexTerm, MATCH_WEIGHTS, TEXT_FIELDS, textFieldsOf } from './text-fields';
 import { MAX_GROUPS, TextIndex, type TextGroupQuery, type TextHit } from './text-index';
+import { SlotList } from './slot-list';
 import { TopK } from './top-k';
 
 export interface CaseRow {
@@ -171,6 +172,8 @@ export class ShopIndex {
   private freeSlots: number[] = [];
   private postings = new Map<string, Set<number>>();
   private columns = new SlotColumns();
+  /** the cases the current query touched (reused: see SlotList) */
+  private touched = new SlotList();
   private text = new TextIndex(TEXT_FIELDS, indexTerm, MATCH_WEIGHTS);
   private tagCache: string[] | null = null;
   platforms: Platform[] = [];
@@ -253,7 +256,8 @@ export class ShopIndex {
 
   /** The ranked, visible cases for a query. */
   search(q: IndexSearch): IndexResult {
-    const touched: number[] = [];
+    const touched = this.touched;
+    touched.clear();
     const points = this.columns.points;
     const add = (slot: number, pts: number) => {
       if (pts <= 0) return;
@@ -264,12 +268,12 @@ export class ShopIndex {
       const { hits, groups } = this.collect(q, add, touched);
       return this.rank(q, touched, hits, groups);
     } finally {
-      for (const s of touched) points[s] = 0;
+      for (let i = 0; i < touched.length; i++) points[touched.items[i]!] = 0;
     }
   }
 
   /** Adds cheap candidate points from postings and text; returns the text hits by slot. */
-  private collect(q: IndexSearch, add: (slot: number, pts: number) => void, touched: number[]) {
+  private collect(q: IndexSearch, add: (slot: number, pts: number) => void, touched: SlotList) {
     const { parsed } = q;
     const sk = structuredKeys(parsed);
     const addAll = (key: string, pts: number) => {
@@ -357,7 +361,8 @@ export class ShopIndex {
 
   /** Points for each platform id against the platform the query is about (index = platform id). */
   private platformPoints(query: Platform | null): Float64Array {
-    const points = new Float64Array(query ? Math.max(0, ...this.platforms.map((p) => p.id)) + 1 : 1);
+    // sized for every platform id, so the candidate loop never reads past the end
+    const points = new Float64Array(Math.max(0, ...this.platforms.map((p) => p.id)) + 1);
     if (!query) return points;
     for (const p of this.platforms) points[p.id] = Math.max(0, W.platform[platformSimilarity(query, p).level]);
     return points;
@@ -373,7 +378,7 @@ export class ShopIndex {
   }
 
   /** The best candidates by cheap score x quality, among those the caller may see. */
-  private shortlist(q: IndexSearch, touched: number[]): { slots: number[]; total: number } {
+  private shortlist(q: IndexSearch, touched: SlotList): { slots: number[]; total: number } {
     const { status, platform, points, quality, growth } = this.columns;
     const platformPts = this.platformPoints(q.platform);
     const decayNow = 2 ** (-(q.now.getTime() - EPOCH_MS) / HALF_LIFE_MS);
@@ -383,7 +388,8 @@ export class ShopIndex {
     const seesAllDrafts = canSeeCase(q.actor, { status: 'draft', authorId: -1 });
     const top = new TopK(Math.max(FULL_RANK_MIN, q.limit * 5));
     let total = 0;
-    for (const slot of touched) {
+    for (let i = 0; i < touched.length; i++) {
+      const slot = touched.items[i]!;
       if (status[slot] === DRAFT && !seesAllDrafts && !canSeeCase(q.actor, this.docs[slot]!)) continue;
       if (filtered && !this.passesFilters(this.docs[slot]!, q.filters)) continue;
       total++;
@@ -393,7 +399,7 @@ export class ShopIndex {
     return { slots: top.items(), total };
   }
 
-  private rank(q: IndexSearch, touched: number[], text: Map<number, SlotHit>, groups: TextGroup[]): IndexResult {
+  private rank(q: IndexSearch, touched: SlotList, text: Map<number, SlotHit>, groups: TextGroup[]): IndexResult {
     const { slots, total } = this.shortlist(q, touched);
     const candidates: IndexedCandidate[] = slots.map((slot) => {
       const d = this.docs[slot]!;

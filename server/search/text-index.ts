@@ -8,6 +8,7 @@
 // (docs/performance.md). Here the same scores come from a scan of two flat
 // arrays per term. test/server/text-index.test.ts checks them against MiniSearch.
 import SearchableMap from 'minisearch/SearchableMap';
+import { SlotList } from './slot-list';
 import { TopK } from './top-k';
 
 /** minisearch's BM25+ defaults (k1, length normalisation b, BM25+ delta d). */
@@ -99,6 +100,7 @@ export class TextIndex {
   // per-query scratch, kept between queries (zeroed after use)
   private scores = new Float64Array(1024);
   private masks = new Uint8Array(1024);
+  private touched = new SlotList();
 
   constructor(
     private readonly fields: readonly TextField[],
@@ -162,26 +164,39 @@ export class TextIndex {
    * by the number of groups the note matched.
    */
   search(groups: readonly TextGroupQuery[], combineWith: 'AND' | 'OR', limit: number): TextHit[] {
-    const used = groups.slice(0, MAX_GROUPS);
-    const touched: number[] = [];
+    const used = groups.slice(0, MAX_GROUPS).map((g, i) => ({ bit: 1 << i, terms: this.expand(g) }));
+    // AND: the rarest group first; later groups only score notes still in the running
+    if (combineWith === 'AND') used.sort((a, b) => this.postingsSize(a.terms) - this.postingsSize(b.terms));
+    const touched = this.touched;
+    touched.clear();
     try {
-      used.forEach((g, i) => {
-        for (const [termId, weight] of this.expand(g)) this.score(termId, weight, 1 << i, touched);
-      });
+      let required = 0;
+      for (const g of used) {
+        for (const [termId, weight] of g.terms) this.score(termId, weight, g.bit, required, touched);
+        if (combineWith === 'AND') required |= g.bit;
+      }
       const all = (1 << used.length) - 1;
       const top = new TopK(limit);
-      for (const slot of touched) {
+      for (let i = 0; i < touched.length; i++) {
+        const slot = touched.items[i]!;
         const mask = this.masks[slot]!;
         if (combineWith === 'AND' && mask !== all) continue;
-        top.push(slot, this.scores[slot]! * bitCount(mask));
+        const score = this.scores[slot]! * bitCount(mask);
+        if (top.accepts(score)) top.push(slot, score);
       }
       return top.sorted().map(({ slot, score }) => ({ slot, score, groups: this.masks[slot]! }));
     } finally {
-      for (const slot of touched) {
-        this.scores[slot] = 0;
-        this.masks[slot] = 0;
+      for (let i = 0; i < touched.length; i++) {
+        this.scores[touched.items[i]!] = 0;
+        this.masks[touched.items[i]!] = 0;
       }
     }
+  }
+
+  private postingsSize(terms: Map<number, number>): number {
+    let n = 0;
+    for (const id of terms.keys()) for (let f = 0; f < this.fields.length; f++) n += this.postings[id * this.fields.length + f]?.size ?? 0;
+    return n;
   }
 
   /** Index terms for a group with their match weights, as minisearch derives them. */
@@ -214,8 +229,11 @@ export class TextIndex {
     return out;
   }
 
-  /** Adds one term's BM25+ score, in every field, to each note holding it. */
-  private score(termId: number, weight: number, bit: number, touched: number[]) {
+  /**
+   * Adds one term's BM25+ score, in every field, to each note holding it that has
+   * matched every `required` group so far (0: any note, which then joins `touched`).
+   */
+  private score(termId: number, weight: number, bit: number, required: number, touched: SlotList) {
     const { k, b, d } = BM25;
     const scores = this.scores;
     const masks = this.masks;
@@ -229,11 +247,12 @@ export class TextIndex {
       const { slots, tfs } = p;
       for (let i = 0; i < p.size; i++) {
         const slot = slots[i]!;
+        const mask = masks[slot]!;
+        if ((mask & required) !== required) continue;
+        if (mask === 0) touched.push(slot);
         const tf = tfs[i]!;
-        const raw = d + (tf * (k + 1)) / (tf + k * (1 - b + (b * lengths[slot]!) / avg));
-        if (masks[slot] === 0) touched.push(slot);
-        masks[slot]! |= bit;
-        scores[slot]! += factor * raw;
+        masks[slot] = mask | bit;
+        scores[slot]! += factor * (d + (tf * (k + 1)) / (tf + k * (1 - b + (b * lengths[slot]!) / avg)));
       }
     }
   }

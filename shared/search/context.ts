@@ -93,20 +93,23 @@ const RULES: Rule[] = [
 
 const COMPILED = RULES.map((r) => ({
   tags: r.tags,
-  res: [
-    new RegExp(String.raw`${B}${TRIGGER}${FILLER} (?:${r.afterTrigger})${JOB}${E}`, 'giu'),
-    ...(r.anywhere ? [new RegExp(String.raw`${B}(?:${r.anywhere})${E}`, 'giu')] : []),
-  ],
+  afterTrigger: new RegExp(String.raw`${B}${TRIGGER}${FILLER} (?:${r.afterTrigger})${JOB}${E}`, 'giu'),
+  anywhere: r.anywhere ? new RegExp(String.raw`${B}(?:${r.anywhere})${E}`, 'giu') : null,
 }));
+
+/** Without a trigger word only the "anywhere" phrases can match: most searches skip half the rules. */
+const HAS_TRIGGER = new RegExp(String.raw`${B}(?:after|since|following|post)${E}`, 'iu');
 
 export interface QueryContext { rest: string; context: ContextTag[] }
 
 /** Finds recent-work phrases, masks them, returns context tags in table order. */
 export function extractContext(text: string): QueryContext {
   const found = new Set<ContextTag>();
+  const triggered = HAS_TRIGGER.test(text);
   let rest = text;
   for (const rule of COMPILED) {
-    for (const re of rule.res) {
+    const res = [triggered ? rule.afterTrigger : null, rule.anywhere].filter((re): re is RegExp => re !== null);
+    for (const re of res) {
       rest = consume(rest, re, () => {
         for (const t of rule.tags) found.add(t);
       });

@@ -11,6 +11,20 @@ const YEAR_POINTS = 1;
 
 const escapeRe = (s: string): string => s.replace(/[.*+?^${}()|[\]\\]/g, '\\$&');
 
+const NAME_RES = new Map<string, RegExp | null>();
+
+/** nameRe, compiled once per name: every search tries every platform of the shop. */
+function cachedNameRe(name: string, looseJoin: boolean): RegExp | null {
+  const key = `${looseJoin ? 1 : 0}${name}`;
+  let re = NAME_RES.get(key);
+  if (re === undefined) {
+    re = nameRe(name, looseJoin);
+    if (NAME_RES.size >= 5000) NAME_RES.clear();
+    NAME_RES.set(key, re);
+  }
+  return re;
+}
+
 /** Words of a name as a regex; spaces and hyphens between parts are optional for codes ("VT-27", "vt 27"). */
 function nameRe(name: string, looseJoin: boolean): RegExp | null {
   const parts = name.trim().split(/[\s-]+/).filter(Boolean).map(escapeRe);
@@ -43,9 +57,9 @@ export function extractPlatforms(text: string, platforms: readonly Platform[]): 
   const scored: { p: Platform; score: number; spans: Span[] }[] = [];
   const years = [...text.matchAll(YEAR_RE)].map((m) => ({ year: Number(m[1]), start: m.index ?? 0, end: (m.index ?? 0) + m[0].length }));
   for (const p of platforms) {
-    const engine = spansOf(text, nameRe(p.engine, true));
-    const model = spansOf(text, nameRe(p.model, false));
-    const make = spansOf(text, nameRe(p.make, false));
+    const engine = spansOf(text, cachedNameRe(p.engine, true));
+    const model = spansOf(text, cachedNameRe(p.model, false));
+    const make = spansOf(text, cachedNameRe(p.make, false));
     let score = (engine.length ? ENGINE_POINTS : 0) + (model.length ? MODEL_POINTS : 0) + (make.length ? MAKE_POINTS : 0);
     if (score === 0) continue;
     const spans = [...engine, ...model, ...make];

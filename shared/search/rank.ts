@@ -231,6 +231,12 @@ const timeOf = (d: Date | string): number => {
   return Number.isFinite(t) ? t : 0;
 };
 
+const idCollator = new Intl.Collator('en', { numeric: true });
+
+/** Ids in natural order ('case-2' before 'case-10'); one collator, as creating one per call is slow. */
+const compareIds = (a: number | string, b: number | string): number =>
+  typeof a === 'number' && typeof b === 'number' ? a - b : idCollator.compare(String(a), String(b));
+
 /** Cases by score (highest first), then most recently updated, then id. */
 export function rankCases<C extends CaseCandidate>(parsed: ParsedQuery, candidates: readonly C[], ctx: RankContext): RankedCase<C>[] {
   return candidates
@@ -239,6 +245,6 @@ export function rankCases<C extends CaseCandidate>(parsed: ParsedQuery, candidat
       (a, b) =>
         b.score - a.score ||
         timeOf(b.candidate.updatedAt) - timeOf(a.candidate.updatedAt) ||
-        String(a.candidate.id).localeCompare(String(b.candidate.id), 'en', { numeric: true }),
+        compareIds(a.candidate.id, b.candidate.id),
     );
 }

@@ -5,7 +5,7 @@
 // may also carry one typo ("rough idel"). Linking words are ignored, so
 // "whistling on boost" finds whistle-under-boost.
 import { normaliseTerms } from '../terms';
-import { editDistance, kebabToWords, LINK_WORDS, type Token, tokenize, wordsMatch } from './text';
+import { kebabToWords, LINK_WORDS, type Token, tokenize, withinOneEdit, wordsMatch } from './text';
 
 // Everyday phrasings rewritten to the words tags usually use. Common practice, no source.
 const PHRASES: [RegExp, string][] = [
@@ -49,24 +49,15 @@ function buildTagForms(tag: string): TagForm[] {
   return forms.filter((f) => f.words.length > 0);
 }
 
-type Matcher = (query: string, tagWord: string) => boolean;
-
-/** wordsMatch with a per-query memo: many tags share words, and typo checks cost. */
-function memoMatcher(): Matcher {
-  const memo = new Map<string, boolean>();
-  return (q, t) => {
-    const key = `${q}\u0000${t}`;
-    let v = memo.get(key);
-    if (v === undefined) {
-      v = wordsMatch(q, t);
-      memo.set(key, v);
-    }
-    return v;
-  };
+/** A query word and the tag words it matches (wordsMatch), worked out once per query. */
+interface Word {
+  lower: string;
+  matches: Set<string>;
+  used: boolean;
 }
 
 /** Indexes (into `words`) of a match for every tag word within a short window, any order. */
-function findWindow(words: { lower: string; used: boolean }[], tagWords: string[], match: Matcher): number[] | null {
+function findWindow(words: Word[], tagWords: string[]): number[] | null {
   const span = tagWords.length + 2;
   for (let i = 0; i < words.length; i++) {
     const picked: number[] = [];
@@ -74,7 +65,7 @@ function findWindow(words: { lower: string; used: boolean }[], tagWords: string[
       let hit = -1;
       for (let j = i; j < Math.min(words.length, i + span); j++) {
         const w = words[j];
-        if (w && !w.used && !picked.includes(j) && match(w.lower, tw)) {
+        if (w && !w.used && !picked.includes(j) && w.matches.has(tw)) {
           hit = j;
           break;
         }
@@ -88,16 +79,49 @@ function findWindow(words: { lower: string; used: boolean }[], tagWords: string[
 }
 
 /** Consecutive words whose joined text is one typo away from the tag phrase. */
-function findFuzzyPhrase(words: { lower: string; used: boolean }[], tagWords: string[]): number[] | null {
-  const phrase = tagWords.join(' ');
-  if (phrase.length < 5 || tagWords.length < 2) return null;
-  const n = tagWords.length;
-  for (let i = 0; i + n <= words.length; i++) {
-    const win = words.slice(i, i + n);
-    if (win.some((w) => w.used)) continue;
-    if (editDistance(win.map((w) => w.lower).join(' '), phrase, 1) <= 1) return win.map((_, k) => i + k);
+function findFuzzyPhrase(words: Word[], windows: string[][], phrase: string, n: number): number[] | null {
+  if (phrase.length < 5 || n < 2) return null;
+  const texts = windows[n] ?? [];
+  for (let i = 0; i < texts.length; i++) {
+    const text = texts[i]!;
+    if (Math.abs(text.length - phrase.length) > 1 || !withinOneEdit(text, phrase)) continue;
+    if (words.slice(i, i + n).some((w) => w.used)) continue;
+    return Array.from({ length: n }, (_, k) => i + k);
   }
   return null;
+}
+
+/** A shop's tags, prepared once per tag list (the index keeps one list per shop). */
+interface PreparedTags {
+  /** longest first, so "shakes at idle" is not spent on a shorter tag */
+  forms: (TagForm & { phrase: string })[];
+  words: string[];
+  maxWords: number;
+}
+
+const PREPARED = new WeakMap<readonly string[], PreparedTags>();
+
+function prepared(symptomTags: readonly string[]): PreparedTags {
+  let p = PREPARED.get(symptomTags);
+  if (!p) {
+    const forms = [...new Set(symptomTags)]
+      .flatMap(tagForms)
+      .map((f) => ({ ...f, phrase: f.words.join(' ') }))
+      .sort((a, b) => b.words.length - a.words.length || b.phrase.length - a.phrase.length);
+    p = { forms, words: [...new Set(forms.flatMap((f) => f.words))], maxWords: Math.max(0, ...forms.map((f) => f.words.length)) };
+    PREPARED.set(symptomTags, p);
+  }
+  return p;
+}
+
+/** windows[n][i]: the text of n words from word i, for the one-typo phrase check. */
+function wordWindows(words: Word[], maxWords: number): string[][] {
+  const windows: string[][] = [];
+  for (let n = 2; n <= Math.min(maxWords, words.length); n++) {
+    windows[n] = [];
+    for (let i = 0; i + n <= words.length; i++) windows[n]!.push(words.slice(i, i + n).map((w) => w.lower).join(' '));
+  }
+  return windows;
 }
 
 export interface SymptomMatch { tags: string[]; used: Set<number> }
@@ -108,18 +132,19 @@ export interface SymptomMatch { tags: string[]; used: Set<number> }
  * Returns the tags and the token indexes they used.
  */
 export function matchSymptomTags(tokens: Token[], symptomTags: readonly string[]): SymptomMatch {
+  const tags = prepared(symptomTags);
   // content-word view, keeping a map back to token indexes
   const contentIdx = tokens.map((t, i) => (LINK_WORDS.has(t.lower) ? -1 : i)).filter((i) => i >= 0);
-  const content = contentIdx.map((i) => ({ lower: tokens[i]?.lower ?? '', used: false }));
-  const forms = [...new Set(symptomTags)]
-    .flatMap(tagForms)
-    .sort((a, b) => b.words.length - a.words.length || b.words.join(' ').length - a.words.join(' ').length);
-  const match = memoMatcher();
+  const content: Word[] = contentIdx.map((i) => {
+    const lower = tokens[i]?.lower ?? '';
+    return { lower, matches: new Set(tags.words.filter((tw) => wordsMatch(lower, tw))), used: false };
+  });
+  const windows = wordWindows(content, tags.maxWords);
   const found = new Map<string, number>();
   const used = new Set<number>();
-  for (const f of forms) {
+  for (const f of tags.forms) {
     if (found.has(f.tag)) continue;
-    const hit = findWindow(content, f.words, match) ?? findFuzzyPhrase(content, f.words);
+    const hit = findWindow(content, f.words) ?? findFuzzyPhrase(content, windows, f.phrase, f.words.length);
     if (!hit) continue;
     found.set(f.tag, Math.min(...hit));
     for (const k of hit) {
@@ -130,6 +155,5 @@ export function matchSymptomTags(tokens: Token[], symptomTags: readonly string[]
     }
   }
   // in the order the query mentions them
-  const tags = [...found.entries()].sort((a, b) => a[1] - b[1]).map(([t]) => t);
-  return { tags, used };
+  return { tags: [...found.entries()].sort((a, b) => a[1] - b[1]).map(([t]) => t), used };
 }

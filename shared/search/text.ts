@@ -1,5 +1,5 @@
 // Small text tools shared by the query parser: input clean-up, masking of
-// consumed spans, tokens, stop words, a light stemmer and edit distance.
+// consumed spans, tokens, stop words, a light stemmer and a one-typo check.
 
 export const MAX_QUERY_CHARS = 500;
 
@@ -26,11 +26,13 @@ export function mask(s: string, start: number, end: number): string {
 
 /** Runs a global regex over `s`, calls `onMatch` per hit, masks every hit. */
 export function consume(s: string, re: RegExp, onMatch: (m: RegExpExecArray) => boolean | void): string {
+  if (!re.global) throw new Error('consume needs a global regex');
   let out = s;
-  for (const m of s.matchAll(re)) {
-    if (m.index === undefined) continue;
-    if (onMatch(m as RegExpExecArray) === false) continue;
-    out = mask(out, m.index, m.index + m[0].length);
+  // exec on the regex itself: matchAll would copy the regex on every call
+  re.lastIndex = 0;
+  for (let m = re.exec(s); m !== null; m = re.exec(s)) {
+    if (m[0] === '') re.lastIndex++; // an empty match would never move on
+    else if (onMatch(m) !== false) out = mask(out, m.index, m.index + m[0].length);
   }
   return out;
 }
@@ -63,8 +65,21 @@ export const LINK_WORDS = new Set([
   'to', 'for', 'and', 'is', 'it', 'its', 'by', 'into', 'upon',
 ]);
 
+const STEMS = new Map<string, string>();
+
 /** Light suffix stripping: shakes/shaking/shake -> shak, whistling/whistle -> whistl. */
 export function stem(word: string): string {
+  let s = STEMS.get(word);
+  if (s === undefined) {
+    s = stemOnce(word);
+    // words repeat across queries and tags; the bound only guards against odd input
+    if (STEMS.size >= 50_000) STEMS.clear();
+    STEMS.set(word, s);
+  }
+  return s;
+}
+
+function stemOnce(word: string): string {
   let w = word.toLowerCase();
   if (w.length <= 3) return w;
   if (w.endsWith('ations')) w = `${w.slice(0, -6)}ate`;
@@ -81,27 +96,23 @@ export function stem(word: string): string {
   return w;
 }
 
-/** Optimal string alignment distance (adjacent swaps count 1), stopping early past `max`. */
-export function editDistance(a: string, b: string, max = 2): number {
-  if (Math.abs(a.length - b.length) > max) return max + 1;
-  if (a === b) return 0;
-  let prev2: number[] = [];
-  let prev: number[] = Array.from({ length: b.length + 1 }, (_, j) => j);
-  for (let i = 1; i <= a.length; i++) {
-    const cur: number[] = [i];
-    let rowMin = i;
-    for (let j = 1; j <= b.length; j++) {
-      const cost = a[i - 1] === b[j - 1] ? 0 : 1;
-      let v = Math.min((prev[j] ?? 0) + 1, (cur[j - 1] ?? 0) + 1, (prev[j - 1] ?? 0) + cost);
-      if (i > 1 && j > 1 && a[i - 1] === b[j - 2] && a[i - 2] === b[j - 1]) v = Math.min(v, (prev2[j - 2] ?? 0) + 1);
-      cur.push(v);
-      rowMin = Math.min(rowMin, v);
-    }
-    if (rowMin > max) return max + 1;
-    prev2 = prev;
-    prev = cur;
+/**
+ * Whether two strings are at most one edit apart (a substitution, an insertion or
+ * deletion, or a swap of neighbours): optimal string alignment distance <= 1, in one pass.
+ */
+export function withinOneEdit(a: string, b: string): boolean {
+  if (a === b) return true;
+  const [s, l] = a.length <= b.length ? [a, b] : [b, a];
+  if (l.length - s.length > 1) return false;
+  let i = 0;
+  while (i < s.length && s[i] === l[i]) i++;
+  if (s.length === l.length) {
+    // one substitution, or neighbours swapped
+    if (s.slice(i + 1) === l.slice(i + 1)) return true;
+    return s[i] === l[i + 1] && s[i + 1] === l[i] && s.slice(i + 2) === l.slice(i + 2);
   }
-  return prev[b.length] ?? max + 1;
+  // one character more in the longer string
+  return s.slice(i) === l.slice(i + 1);
 }
 
 /** Same word allowing for inflection, or one typo in words of 5+ characters. */
@@ -109,7 +120,7 @@ export function wordsMatch(query: string, target: string): boolean {
   const q = query.toLowerCase();
   const t = target.toLowerCase();
   if (q === t || stem(q) === stem(t)) return true;
-  return q.length >= 5 && t.length >= 5 && editDistance(q, t, 1) <= 1;
+  return q.length >= 5 && t.length >= 5 && withinOneEdit(q, t);
 }
 
 export const unique = <T>(xs: Iterable<T>): T[] => [...new Set(xs)];

@@ -7,7 +7,7 @@ import { cases, platforms } from '../../db/schema';
 import { createApp, type CausewayApp } from '../../server/app';
 import { recordChange } from '../../server/changes/change-log';
 import type { AppContext } from '../../server/context';
-import { searchIndexStatus } from '../../server/search/service';
+import { searchIndexStatus } from '../../server/search/client';
 import { searchResponseSchema, type SearchResponse } from '../../shared/schemas/search';
 import { createTestApp, seedShop, signedIn, type TestApp } from '../support/test-app';
 
@@ -251,7 +251,7 @@ describe('live index', () => {
   it('reports the index state on /api/health', async () => {
     const res = await request(t.app).get('/api/health').expect(200);
     expect(res.body.index).toMatchObject({ state: 'ready' });
-    expect(searchIndexStatus(t.ctx).cases).toBeGreaterThan(0);
+    expect((await searchIndexStatus(t.ctx)).cases).toBeGreaterThan(0);
   });
 });
 
@@ -288,12 +288,12 @@ describe('two app instances on one database', () => {
     expect(inB.results.map((r) => r.id)).toContain(id);
 
     // an edit through A reaches B's index by the background poll, with no request to B
-    const before = searchIndexStatus(secondCtx).lastChangeId;
+    const before = (await searchIndexStatus(secondCtx)).lastChangeId;
     const detail = await a.agent.get(`/api/cases/${id}`).expect(200);
     await a.agent.patch(`/api/cases/${id}`).set('X-CSRF-Token', a.csrf).send({ title: 'Wandering idle, idle valve sticking', version: detail.body.case.version }).expect(200);
     const started = Date.now();
-    while (searchIndexStatus(secondCtx).lastChangeId <= before && Date.now() - started < 2000) await new Promise((r) => setTimeout(r, 50));
-    expect(searchIndexStatus(secondCtx).lastChangeId).toBeGreaterThan(before);
+    while ((await searchIndexStatus(secondCtx)).lastChangeId <= before && Date.now() - started < 2000) await new Promise((r) => setTimeout(r, 50));
+    expect((await searchIndexStatus(secondCtx)).lastChangeId).toBeGreaterThan(before);
     expect(Date.now() - started).toBeLessThan(2000);
     const after = await search(b.agent, { q: 'idle valve sticking' });
     expect(after.results.map((r) => r.id)).toContain(id);
