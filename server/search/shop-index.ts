@@ -4,7 +4,7 @@
 // A search first collects candidates from the postings and the text index
 // with a cheap additive score, keeps the best few hundred, and only those go
 // through the full explained ranking (shared/search/rank.ts).
-import { codeFacts } from '../../shared/search/code-facts';
+import { codeFacts, type CodeFacts, validCodeFacts } from '../../shared/search/code-facts';
 import { type Platform, platformSimilarity } from '../../shared/platform';
 import { canSeeCase, type Actor } from '../../shared/policy';
 import { caseStatuses, type CaseStatus } from '../../shared/roles';
@@ -20,7 +20,8 @@ import { expandTerm } from '../../shared/terms';
 import { kebabToWords, unique } from '../../shared/search/text';
 import { indexTerm, MATCH_WEIGHTS, TEXT_FIELDS, textFieldsOf } from './text-fields';
 import { MAX_GROUPS, TextIndex, type TextGroupQuery, type TextHit } from './text-index';
-import { SlotList } from './slot-list';
+import { KeyPostings } from './key-postings';
+import { CandidatePoints } from './slot-list';
 import { TopK } from './top-k';
 
 export interface CaseRow {
@@ -51,6 +52,7 @@ interface Doc {
   fixConfirmed: boolean;
   updatedAt: Date;
   keys: string[];
+  codeFacts: CodeFacts[];
 }
 
 export interface SearchFilters {
@@ -131,8 +133,6 @@ class SlotColumns {
   quality = new Float64Array(1024);
   /** 2^((updatedAt - EPOCH) / half-life): times 2^(-(now - EPOCH) / half-life) it is the recency decay */
   growth = new Float64Array(1024);
-  /** the cheap candidate score of the current query */
-  points = new Float64Array(1024);
 
   ensure(n: number) {
     if (this.status.length >= n) return;
@@ -147,7 +147,6 @@ class SlotColumns {
     this.platform = grow(this.platform, Int32Array);
     this.quality = grow(this.quality, Float64Array);
     this.growth = grow(this.growth, Float64Array);
-    this.points = grow(this.points, Float64Array);
   }
 
   set(slot: number, d: Doc) {
@@ -170,10 +169,10 @@ export class ShopIndex {
   private docs: (Doc | undefined)[] = [];
   private slotOf = new Map<number, number>();
   private freeSlots: number[] = [];
-  private postings = new Map<string, Set<number>>();
+  private postings = new KeyPostings();
   private columns = new SlotColumns();
-  /** the cases the current query touched (reused: see SlotList) */
-  private touched = new SlotList();
+  /** the current query's cheap points per case (reused: see slot-list.ts) */
+  private candidates = new CandidatePoints();
   private text = new TextIndex(TEXT_FIELDS, indexTerm, MATCH_WEIGHTS);
   private tagCache: string[] | null = null;
   platforms: Platform[] = [];
@@ -210,12 +209,7 @@ export class ShopIndex {
     if (slot === undefined) return;
     const doc = this.docs[slot]!;
     for (const k of doc.keys) {
-      const set = this.postings.get(k);
-      set?.delete(slot);
-      if (set && set.size === 0) {
-        this.postings.delete(k);
-        if (k.startsWith('tag:')) this.tagCache = null;
-      }
+      if (this.postings.delete(k, slot) && k.startsWith('tag:')) this.tagCache = null;
     }
     this.text.remove(slot);
     this.docs[slot] = undefined;
@@ -238,48 +232,35 @@ export class ShopIndex {
       fixConfirmed: row.confirmedAt !== null,
       updatedAt: row.updatedAt,
       keys,
+      codeFacts: validCodeFacts(row.codes),
     };
     this.docs[slot] = doc;
     this.columns.set(slot, doc);
     this.slotOf.set(row.id, slot);
     for (const k of keys) {
-      let set = this.postings.get(k);
-      if (!set) {
-        set = new Set();
-        this.postings.set(k, set);
-        if (k.startsWith('tag:')) this.tagCache = null;
-      }
-      set.add(slot);
+      if (this.postings.add(k, slot) && k.startsWith('tag:')) this.tagCache = null;
     }
+    this.candidates.ensure(this.docs.length);
     return slot;
   }
 
   /** The ranked, visible cases for a query. */
   search(q: IndexSearch): IndexResult {
-    const touched = this.touched;
-    touched.clear();
-    const points = this.columns.points;
-    const add = (slot: number, pts: number) => {
-      if (pts <= 0) return;
-      if (points[slot] === 0) touched.push(slot);
-      points[slot]! += pts;
-    };
+    const candidates = this.candidates;
+    candidates.clear();
     try {
-      const { hits, groups } = this.collect(q, add, touched);
-      return this.rank(q, touched, hits, groups);
+      const { hits, groups } = this.collect(q, candidates);
+      return this.rank(q, candidates, hits, groups);
     } finally {
-      for (let i = 0; i < touched.length; i++) points[touched.items[i]!] = 0;
+      candidates.clear();
     }
   }
 
   /** Adds cheap candidate points from postings and text; returns the text hits by slot. */
-  private collect(q: IndexSearch, add: (slot: number, pts: number) => void, touched: SlotList) {
+  private collect(q: IndexSearch, candidates: CandidatePoints) {
     const { parsed } = q;
     const sk = structuredKeys(parsed);
-    const addAll = (key: string, pts: number) => {
-      const set = this.postings.get(key);
-      if (set) for (const s of set) add(s, pts);
-    };
+    const addAll = (key: string, pts: number) => candidates.addAll(this.postings.slots(key), pts);
     if (sk.codes.length) {
       const per = W.code.points / sk.codes.length;
       for (const code of sk.codes) {
@@ -296,39 +277,36 @@ export class ShopIndex {
       const best = found[0]?.score ?? 0;
       for (const h of found) {
         // the recall net adds only cases the exact keys missed: a tagged case needs no word match on its own tag
-        if (onlyNew && (hits.has(h.slot) || this.columns.points[h.slot] !== 0)) continue;
+        if (onlyNew && (hits.has(h.slot) || candidates.has(h.slot))) continue;
         hits.set(h.slot, { score: (h.score / best) * share, groups: h.groups });
-        add(h.slot, W.text * (h.score / best) * share);
+        candidates.add(h.slot, W.text * (h.score / best) * share);
       }
     };
     const groups = textGroups(parsed, false);
-    addText(this.textSearch(groups, touched.length === 0), 1, false);
+    addText(this.textSearch(groups, candidates.size === 0), 1, false);
 
     // Recall nets, only when the precise keys found too little.
-    if (touched.length < q.limit && sk.codes.length) {
+    if (candidates.size < q.limit && sk.codes.length) {
       const per = W.code.points / sk.codes.length;
       for (const g of unique(sk.codes.map(groupKey).filter((x): x is string => x !== null))) addAll(g, per * W.code.group * 0.5);
     }
     const withTags = textGroups(parsed, true);
-    if (touched.length < q.limit && parsed.tags.length) {
+    if (candidates.size < q.limit && parsed.tags.length) {
       addText(this.text.search(this.groupQueries(withTags, false), 'OR', TEXT_HITS_MAX), 0.5, true);
     }
     const nothingTyped = !parsed.words.length && !sk.codes.length && !sk.tags.length && !sk.context.length && !sk.cylinders.length;
-    if (touched.length === 0 && nothingTyped) this.seedFromFilters(q, add);
+    if (candidates.size === 0 && nothingTyped) this.seedFromFilters(q, candidates);
     return { hits, groups: withTags };
   }
 
   /** Nothing in the text to go on: the platform or the filters alone choose the cases. */
-  private seedFromFilters(q: IndexSearch, add: (slot: number, pts: number) => void) {
+  private seedFromFilters(q: IndexSearch, candidates: CandidatePoints) {
     const keys: string[] = [];
     if (q.platform) keys.push(`platform:${q.platform.id}`);
     else if (q.filters.code) keys.push(`code:${q.filters.code}`);
     else if (q.filters.tag) keys.push(`tag:${q.filters.tag}`, `ctx:${q.filters.tag}`);
     else if (q.filters.status) keys.push(`status:${q.filters.status}`);
-    for (const k of keys) {
-      const set = this.postings.get(k);
-      if (set) for (const s of set) add(s, 1);
-    }
+    for (const k of keys) candidates.addAll(this.postings.slots(k), 1);
   }
 
   /**
@@ -378,8 +356,9 @@ export class ShopIndex {
   }
 
   /** The best candidates by cheap score x quality, among those the caller may see. */
-  private shortlist(q: IndexSearch, touched: SlotList): { slots: number[]; total: number } {
-    const { status, platform, points, quality, growth } = this.columns;
+  private shortlist(q: IndexSearch, candidates: CandidatePoints): { slots: number[]; total: number } {
+    const { status, platform, quality, growth } = this.columns;
+    const { points, touched } = candidates;
     const platformPts = this.platformPoints(q.platform);
     const decayNow = 2 ** (-(q.now.getTime() - EPOCH_MS) / HALF_LIFE_MS);
     const floor = W.recency.floor;
@@ -399,8 +378,8 @@ export class ShopIndex {
     return { slots: top.items(), total };
   }
 
-  private rank(q: IndexSearch, touched: SlotList, text: Map<number, SlotHit>, groups: TextGroup[]): IndexResult {
-    const { slots, total } = this.shortlist(q, touched);
+  private rank(q: IndexSearch, points: CandidatePoints, text: Map<number, SlotHit>, groups: TextGroup[]): IndexResult {
+    const { slots, total } = this.shortlist(q, points);
     const candidates: IndexedCandidate[] = slots.map((slot) => {
       const d = this.docs[slot]!;
       const hit = text.get(slot);
@@ -417,6 +396,7 @@ export class ShopIndex {
         updatedAt: d.updatedAt,
         textScore: hit ? hit.score : 0,
         matchedWords: hit ? matchedWords(hit.groups, groups) : undefined,
+        codeFacts: d.codeFacts,
       };
     });
     const ranked = rankCases(q.parsed, candidates, { platform: q.platform, now: q.now });

@@ -158,13 +158,19 @@ export class TextIndex {
   }
 
   /**
-   * Notes matching every group (AND) or any (OR), best first, at most `limit`.
+   * Notes matching every group the index has words for (AND) or any group (OR), best
+   * first, at most `limit`.
    * Scores are minisearch's: BM25+ per field times the field boost, times the
    * match weight (1 exact, less for prefix and fuzzy), summed, then multiplied
    * by the number of groups the note matched.
    */
   search(groups: readonly TextGroupQuery[], combineWith: 'AND' | 'OR', limit: number): TextHit[] {
-    const used = groups.slice(0, MAX_GROUPS).map((g, i) => ({ bit: 1 << i, terms: this.expand(g) }));
+    // A word no note holds, even with a typo allowed ("both", "restart" in a shop that never
+    // wrote it), narrows nothing: it is left out rather than failing every note.
+    const used = groups
+      .slice(0, MAX_GROUPS)
+      .map((g, i) => ({ bit: 1 << i, terms: this.expand(g) }))
+      .filter((g) => g.terms.size > 0);
     // AND: the rarest group first; later groups only score notes still in the running
     if (combineWith === 'AND') used.sort((a, b) => this.postingsSize(a.terms) - this.postingsSize(b.terms));
     const touched = this.touched;
@@ -175,7 +181,7 @@ export class TextIndex {
         for (const [termId, weight] of g.terms) this.score(termId, weight, g.bit, required, touched);
         if (combineWith === 'AND') required |= g.bit;
       }
-      const all = (1 << used.length) - 1;
+      const all = used.reduce((m, g) => m | g.bit, 0);
       const top = new TopK(limit);
       for (let i = 0; i < touched.length; i++) {
         const slot = touched.items[i]!;

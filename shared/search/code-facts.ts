@@ -42,3 +42,13 @@ export function codeFacts(raw: string): CodeFacts | null {
   FACTS.set(raw, facts);
   return facts;
 }
+
+/** Facts of the valid codes in a list, each code once: case data may hold anything. */
+export function validCodeFacts(codes: readonly string[]): CodeFacts[] {
+  const out: CodeFacts[] = [];
+  for (const c of codes) {
+    const f = codeFacts(c);
+    if (f && !out.some((o) => o.code === f.code)) out.push(f);
+  }
+  return out;
+}

@@ -1,7 +1,7 @@
 // Explained ranking: each case gets a score and the reasons for it, in words
 // a tech reads at a glance ("both misfire codes P0302 P0305", "same engine VT27").
 import { isMisfireCode } from '../codes';
-import { type CodeFacts, codeFacts } from './code-facts';
+import { type CodeFacts, validCodeFacts } from './code-facts';
 import { banksOfCylinders, type Platform, platformSimilarity } from '../platform';
 import { contextLabel, type ParsedQuery } from './query';
 import { kebabToWords, unique, wordsMatch } from './text';
@@ -21,6 +21,8 @@ export interface CaseCandidate {
   textScore: number;
   /** query words the index matched in this case, if it reports them */
   matchedWords?: string[];
+  /** validCodeFacts(codes), if the caller keeps it (the server's index works it out once per case) */
+  codeFacts?: readonly CodeFacts[];
 }
 
 export interface RankContext {
@@ -36,16 +38,6 @@ interface Part { points: number; why: string | null }
 
 const DAY_MS = 86_400_000;
 
-/** Facts of the valid codes only, each once: case data may hold anything. */
-function cleanCodes(codes: readonly string[]): CodeFacts[] {
-  const out: CodeFacts[] = [];
-  for (const c of codes) {
-    const f = codeFacts(c);
-    if (f && !out.some((o) => o.code === f.code)) out.push(f);
-  }
-  return out;
-}
-
 const listWords = (xs: string[]): string =>
   xs.length <= 1 ? xs.join('') : `${xs.slice(0, -1).join(', ')} and ${xs[xs.length - 1]}`;
 
@@ -57,7 +49,7 @@ function exactWhy(exact: string[]): string {
   return `${all} ${kind}s ${exact.join(' ')}`;
 }
 
-function codePart(queryCodes: CodeFacts[], caseCodes: CodeFacts[], w: SearchWeights): Part[] {
+function codePart(queryCodes: readonly CodeFacts[], caseCodes: readonly CodeFacts[], w: SearchWeights): Part[] {
   if (queryCodes.length === 0 || caseCodes.length === 0) return [];
   const exact: string[] = [];
   const families: string[] = [];
@@ -80,7 +72,7 @@ function codePart(queryCodes: CodeFacts[], caseCodes: CodeFacts[], w: SearchWeig
   return parts;
 }
 
-function caseCylinders(caseCodes: CodeFacts[]): number[] {
+function caseCylinders(caseCodes: readonly CodeFacts[]): number[] {
   return caseCodes.map((c) => c.cylinder).filter((n): n is number => n !== null);
 }
 
@@ -189,7 +181,7 @@ const QUERY_CODES = new WeakMap<ParsedQuery, CodeFacts[]>();
 function queryCodesOf(parsed: ParsedQuery): CodeFacts[] {
   let codes = QUERY_CODES.get(parsed);
   if (!codes) {
-    codes = cleanCodes([...parsed.codes, ...parsed.impliedCodes]);
+    codes = validCodeFacts([...parsed.codes, ...parsed.impliedCodes]);
     QUERY_CODES.set(parsed, codes);
   }
   return codes;
@@ -198,7 +190,7 @@ function queryCodesOf(parsed: ParsedQuery): CodeFacts[] {
 /** Score of one case for a parsed query, with the reasons, strongest first. */
 export function scoreCase(parsed: ParsedQuery, candidate: CaseCandidate, ctx: RankContext): CaseScore {
   const w = ctx.weights ?? SEARCH_WEIGHTS;
-  const codes = cleanCodes(candidate.codes);
+  const codes = candidate.codeFacts ?? validCodeFacts(candidate.codes);
   const cyls = caseCylinders(codes);
   const parts = [
     ...codePart(queryCodesOf(parsed), codes, w),

@@ -133,3 +133,15 @@ describe('text index against MiniSearch (same documents, same options)', () => {
     expect(small.search([{ words: ['coolant'] }], 'OR', 10).map((h) => h.slot)).toEqual([1]);
   });
 });
+
+describe('text index, words no note holds', () => {
+  it('leaves them out of an AND instead of failing every note', () => {
+    const index = new TextIndex(TEXT_FIELDS, indexTerm, MATCH_WEIGHTS);
+    index.add(0, ['Weak lift pump, lean on both banks', 'pump replaced']);
+    index.add(1, ['Lean at idle', 'intake gasket']);
+    const groups = ['weak', 'pump', 'lean', 'zzyzx'].map((w) => ({ words: [w] }));
+    expect(index.search(groups, 'AND', 10).map((h) => h.slot)).toEqual([0]);
+    // a word the index does know still has to match
+    expect(index.search([{ words: ['gasket'] }, { words: ['pump'] }], 'AND', 10)).toEqual([]);
+  });
+});
