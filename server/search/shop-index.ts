@@ -366,14 +366,22 @@ export class ShopIndex {
     // the policy's answer for someone else's draft holds for every draft but the caller's own
     const seesAllDrafts = canSeeCase(q.actor, { status: 'draft', authorId: -1 });
     const top = new TopK(Math.max(FULL_RANK_MIN, q.limit * 5));
+    // quality x recency is at most this, so a case whose points cannot beat the bar is skipped unread
+    const bestQuality = W.fixConfirmed * Math.max(...Object.values(W.status));
+    let bar = -Infinity;
     let total = 0;
     for (let i = 0; i < touched.length; i++) {
       const slot = touched.items[i]!;
       if (status[slot] === DRAFT && !seesAllDrafts && !canSeeCase(q.actor, this.docs[slot]!)) continue;
       if (filtered && !this.passesFilters(this.docs[slot]!, q.filters)) continue;
       total++;
-      const score = (points[slot]! + (platformPts[platform[slot]!] ?? 0)) * quality[slot]! * (floor + (1 - floor) * Math.min(1, decayNow * growth[slot]!));
-      if (top.accepts(score)) top.push(slot, score);
+      const pts = points[slot]! + (platformPts[platform[slot]!] ?? 0);
+      if (pts * bestQuality <= bar) continue;
+      const score = pts * quality[slot]! * (floor + (1 - floor) * Math.min(1, decayNow * growth[slot]!));
+      if (score > bar) {
+        top.push(slot, score);
+        bar = top.bar();
+      }
     }
     return { slots: top.items(), total };
   }

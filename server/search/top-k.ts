@@ -1,22 +1,33 @@
 // The best k entries of a stream by score, in O(n log k): a binary min-heap
 // whose root is the weakest entry kept. Ties keep the entry seen first.
+// Typed arrays of fixed size: a plain array would change its element kind
+// (small integers, then doubles) from query to query and throw optimised code away.
 export class TopK {
-  private slots: number[] = [];
-  private scores: number[] = [];
+  private readonly slots: Int32Array;
+  private readonly scores: Float64Array;
+  private count = 0;
 
-  constructor(private readonly size: number) {}
+  constructor(private readonly size: number) {
+    this.slots = new Int32Array(Math.max(0, size));
+    this.scores = new Float64Array(Math.max(0, size));
+  }
 
   /** Whether push would keep an entry with this score (callers skip work for the rest). */
   accepts(score: number): boolean {
-    return this.slots.length < this.size || score > this.scores[0]!;
+    return score > this.bar();
+  }
+
+  /** The score an entry must beat to be kept: the weakest kept once full, else -Infinity. */
+  bar(): number {
+    return this.count < this.size ? -Infinity : this.scores[0]!;
   }
 
   push(slot: number, score: number) {
     if (this.size <= 0) return;
-    if (this.slots.length < this.size) {
-      this.slots.push(slot);
-      this.scores.push(score);
-      this.up(this.slots.length - 1);
+    if (this.count < this.size) {
+      this.slots[this.count] = slot;
+      this.scores[this.count] = score;
+      this.up(this.count++);
     } else if (score > this.scores[0]!) {
       this.slots[0] = slot;
       this.scores[0] = score;
@@ -26,17 +37,23 @@ export class TopK {
 
   /** What was kept, in no particular order. */
   items(): number[] {
-    return this.slots;
+    return Array.from(this.slots.subarray(0, this.count));
   }
 
   /** What was kept with scores, best first (equal scores: lower slot first). */
   sorted(): { slot: number; score: number }[] {
-    return this.slots.map((slot, i) => ({ slot, score: this.scores[i]! })).sort((a, b) => b.score - a.score || a.slot - b.slot);
+    const out: { slot: number; score: number }[] = [];
+    for (let i = 0; i < this.count; i++) out.push({ slot: this.slots[i]!, score: this.scores[i]! });
+    return out.sort((a, b) => b.score - a.score || a.slot - b.slot);
   }
 
   private swap(a: number, b: number) {
-    [this.slots[a], this.slots[b]] = [this.slots[b]!, this.slots[a]!];
-    [this.scores[a], this.scores[b]] = [this.scores[b]!, this.scores[a]!];
+    const slot = this.slots[a]!;
+    this.slots[a] = this.slots[b]!;
+    this.slots[b] = slot;
+    const score = this.scores[a]!;
+    this.scores[a] = this.scores[b]!;
+    this.scores[b] = score;
   }
 
   private up(i: number) {
@@ -49,7 +66,7 @@ export class TopK {
   }
 
   private down(i: number) {
-    const n = this.scores.length;
+    const n = this.count;
     for (;;) {
       const l = 2 * i + 1;
       const r = l + 1;

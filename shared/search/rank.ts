@@ -1,6 +1,5 @@
 // Explained ranking: each case gets a score and the reasons for it, in words
 // a tech reads at a glance ("both misfire codes P0302 P0305", "same engine VT27").
-import { isMisfireCode } from '../codes';
 import { type CodeFacts, validCodeFacts } from './code-facts';
 import { banksOfCylinders, type Platform, platformSimilarity } from '../platform';
 import { contextLabel, type ParsedQuery } from './query';
@@ -41,21 +40,21 @@ const DAY_MS = 86_400_000;
 const listWords = (xs: string[]): string =>
   xs.length <= 1 ? xs.join('') : `${xs.slice(0, -1).join(', ')} and ${xs[xs.length - 1]}`;
 
-function exactWhy(exact: string[]): string {
-  const misfire = exact.every(isMisfireCode);
+function exactWhy(exact: CodeFacts[]): string {
+  const misfire = exact.every((c) => c.misfire);
   const kind = misfire ? 'misfire code' : 'code';
-  if (exact.length === 1) return `${kind} ${exact[0]}`;
+  if (exact.length === 1) return `${kind} ${exact[0]!.code}`;
   const all = exact.length === 2 ? 'both' : `all ${exact.length}`;
-  return `${all} ${kind}s ${exact.join(' ')}`;
+  return `${all} ${kind}s ${exact.map((c) => c.code).join(' ')}`;
 }
 
 function codePart(queryCodes: readonly CodeFacts[], caseCodes: readonly CodeFacts[], w: SearchWeights): Part[] {
   if (queryCodes.length === 0 || caseCodes.length === 0) return [];
-  const exact: string[] = [];
+  const exact: CodeFacts[] = [];
   const families: string[] = [];
   const groups: string[] = [];
   for (const q of queryCodes) {
-    if (caseCodes.some((c) => c.code === q.code)) exact.push(q.code);
+    if (caseCodes.some((c) => c.code === q.code)) exact.push(q);
     else if (caseCodes.some((c) => c.family === q.family)) families.push(`${q.family}x`);
     else if (q.group !== null && caseCodes.some((c) => c.group === q.group)) groups.push(q.groupLabel ?? '');
   }
@@ -112,8 +111,21 @@ function norm(s: string): string {
   return n;
 }
 
-function overlap(query: string[], caseTags: string[]): string[] {
-  const have = new Set(caseTags.map(norm));
+const NORMALISED = new WeakMap<readonly string[], Set<string>>();
+
+/** A case's tags, normalised once per list (the server's index hands the same lists to every search). */
+function normalisedTags(tags: readonly string[]): Set<string> {
+  let set = NORMALISED.get(tags);
+  if (!set) {
+    set = new Set(tags.map(norm));
+    NORMALISED.set(tags, set);
+  }
+  return set;
+}
+
+function overlap(query: string[], caseTags: readonly string[]): string[] {
+  if (query.length === 0 || caseTags.length === 0) return [];
+  const have = normalisedTags(caseTags);
   return query.filter((t) => have.has(norm(t)));
 }
 
@@ -192,22 +204,21 @@ export function scoreCase(parsed: ParsedQuery, candidate: CaseCandidate, ctx: Ra
   const w = ctx.weights ?? SEARCH_WEIGHTS;
   const codes = candidate.codeFacts ?? validCodeFacts(candidate.codes);
   const cyls = caseCylinders(codes);
-  const parts = [
-    ...codePart(queryCodesOf(parsed), codes, w),
-    ...cylinderPart(parsed, cyls, w),
-    ...bankPart(parsed, candidate, cyls, ctx.platform, w),
-    ...symptomPart(parsed, candidate, w),
-    ...contextPart(parsed, candidate, w),
-    ...platformPart(ctx.platform, candidate, w),
-    ...textPart(parsed, candidate, w),
-  ];
+  const parts = codePart(queryCodesOf(parsed), codes, w).concat(
+    cylinderPart(parsed, cyls, w),
+    bankPart(parsed, candidate, cyls, ctx.platform, w),
+    symptomPart(parsed, candidate, w),
+    contextPart(parsed, candidate, w),
+    platformPart(ctx.platform, candidate, w),
+    textPart(parsed, candidate, w),
+  );
   const relevance = parts.reduce((s, p) => s + p.points, 0);
   if (relevance <= 0) return { score: 0, why: [] };
 
   const age = ageDays(candidate.updatedAt, ctx.now);
   const quality =
     (candidate.fixConfirmed ? w.fixConfirmed : 1) * (w.status[candidate.status] ?? 1) * recencyFactor(age, w);
-  const why = [...parts].sort((a, b) => b.points - a.points).map((p) => p.why).filter((s): s is string => !!s);
+  const why = parts.sort((a, b) => b.points - a.points).map((p) => p.why).filter((s): s is string => !!s);
   if (candidate.fixConfirmed) why.push('fix confirmed');
   if (age !== null && age <= w.recency.mentionWithinDays) {
     const d = Math.floor(age);

@@ -5,7 +5,7 @@
 // may also carry one typo ("rough idel"). Linking words are ignored, so
 // "whistling on boost" finds whistle-under-boost.
 import { normaliseTerms } from '../terms';
-import { kebabToWords, LINK_WORDS, type Token, tokenize, withinOneEdit, wordsMatch } from './text';
+import { kebabToWords, LINK_WORDS, type Token, stem, tokenize, withinOneEdit, wordsMatch } from './text';
 
 // Everyday phrasings rewritten to the words tags usually use. Common practice, no source.
 const PHRASES: [RegExp, string][] = [
@@ -95,7 +95,8 @@ function findFuzzyPhrase(words: Word[], windows: string[][], phrase: string, n: 
 interface PreparedTags {
   /** longest first, so "shakes at idle" is not spent on a shorter tag */
   forms: (TagForm & { phrase: string })[];
-  words: string[];
+  /** every word of every tag, with its stem */
+  words: { word: string; stem: string }[];
   maxWords: number;
 }
 
@@ -108,7 +109,8 @@ function prepared(symptomTags: readonly string[]): PreparedTags {
       .flatMap(tagForms)
       .map((f) => ({ ...f, phrase: f.words.join(' ') }))
       .sort((a, b) => b.words.length - a.words.length || b.phrase.length - a.phrase.length);
-    p = { forms, words: [...new Set(forms.flatMap((f) => f.words))], maxWords: Math.max(0, ...forms.map((f) => f.words.length)) };
+    const words = [...new Set(forms.flatMap((f) => f.words))].map((word) => ({ word, stem: stem(word) }));
+    p = { forms, words, maxWords: Math.max(0, ...forms.map((f) => f.words.length)) };
     PREPARED.set(symptomTags, p);
   }
   return p;
@@ -137,7 +139,9 @@ export function matchSymptomTags(tokens: Token[], symptomTags: readonly string[]
   const contentIdx = tokens.map((t, i) => (LINK_WORDS.has(t.lower) ? -1 : i)).filter((i) => i >= 0);
   const content: Word[] = contentIdx.map((i) => {
     const lower = tokens[i]?.lower ?? '';
-    return { lower, matches: new Set(tags.words.filter((tw) => wordsMatch(lower, tw))), used: false };
+    const matches = new Set<string>();
+    for (const tw of tags.words) if (wordsMatch(lower, tw.word, tw.stem)) matches.add(tw.word);
+    return { lower, matches, used: false };
   });
   const windows = wordWindows(content, tags.maxWords);
   const found = new Map<string, number>();

@@ -115,11 +115,11 @@ export function withinOneEdit(a: string, b: string): boolean {
   return s.slice(i) === l.slice(i + 1);
 }
 
-/** Same word allowing for inflection, or one typo in words of 5+ characters. */
-export function wordsMatch(query: string, target: string): boolean {
+/** Same word allowing for inflection, or one typo in words of 5+ characters. `targetStem`: stem(target), if known. */
+export function wordsMatch(query: string, target: string, targetStem?: string): boolean {
   const q = query.toLowerCase();
   const t = target.toLowerCase();
-  if (q === t || stem(q) === stem(t)) return true;
+  if (q === t || stem(q) === (targetStem ?? stem(t))) return true;
   return q.length >= 5 && t.length >= 5 && withinOneEdit(q, t);
 }
 
