@@ -32,14 +32,19 @@ export async function applyMigrations(db: Db) {
   await migrate(db, { migrationsFolder });
 }
 
-let commits = 0;
+let writes = 0;
 
 /**
- * How many transactions this process has committed through `transaction()`. Readers of
- * the change log (search) compare it to skip a read when nothing was written here;
- * writes from other processes reach them through their poll.
+ * A count of this process's writes that readers of the change log must see: bumped
+ * after every transaction() commits and by recordChange. Search compares it to skip a
+ * log read when nothing was written here; other processes' writes reach it by its poll.
  */
-export const committedTransactions = (): number => commits;
+export const localWrites = (): number => writes;
+
+/** Counts a write (recordChange outside a transaction is committed once it returns). */
+export const noteWrite = () => {
+  writes++;
+};
 
 const RETRYABLE = new Set(['ER_LOCK_DEADLOCK', 'ER_LOCK_WAIT_TIMEOUT']);
 
@@ -51,7 +56,7 @@ export async function transaction<T>(db: Db, work: (tx: Db) => Promise<T>, attem
   for (let attempt = 1; ; attempt++) {
     try {
       const result = await db.transaction((tx) => work(tx as unknown as Db));
-      commits++;
+      noteWrite();
       return result;
     } catch (err) {
       const code = (err as { cause?: { code?: string }; code?: string }).cause?.code ?? (err as { code?: string }).code;

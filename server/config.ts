@@ -31,6 +31,9 @@ const configSchema = z.object({
   MAIL_WEB_PORT: z.coerce.number().int().min(1).max(65535).default(1080),
   MAIL_FROM: z.string().default('Causeway <causeway@causeway.test>'),
   DEMO_MODE: flag.default(true),
+  // Search worker threads, each with its own copy of the index (about 200 MiB per 100,000 cases).
+  // One on a 2-core machine: a second competed with the HTTP thread and lost (docs/performance.md).
+  SEARCH_WORKERS: z.coerce.number().int().min(1).max(16).default(1),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
   DIGEST_CRON: z.string().default('0 7 * * 1'),
   AUTH_LIMIT_PER_ADDRESS: z.coerce.number().int().positive().default(60),
@@ -67,6 +70,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env) {
     mail: { host: c.SMTP_HOST, port: c.SMTP_PORT, webPort: c.MAIL_WEB_PORT, from: c.MAIL_FROM },
     demoMode: c.DEMO_MODE,
     logLevel: c.LOG_LEVEL,
+    searchWorkers: c.SEARCH_WORKERS,
     digestCron: c.DIGEST_CRON,
     limits: { authPerAddress: c.AUTH_LIMIT_PER_ADDRESS, jsonBody: '1mb' },
     version: pkg.version,

@@ -198,6 +198,10 @@ async function measureHttp(root: string): Promise<{ result: CannonResult; times:
   const server = await startBenchServer(root);
   try {
     const cookie = await signIn(server.base);
+    // warm-up, as for (b): the worker's code is compiled while it serves the first queries
+    for (let r = 0; r < 5; r++) {
+      for (const q of BENCH_QUERIES) await fetch(`${server.base}/api/search?q=${encodeURIComponent(q)}`, { headers: { cookie } });
+    }
     const instance = autocannon({
       url: server.base,
       connections: CONNECTIONS,

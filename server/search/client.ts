@@ -1,9 +1,11 @@
-// The app's handle on its search worker (worker.ts): one worker per app instance,
-// started with the first router, stopped with the app. Requests and answers are
-// messages; errors come back as HttpErrors. A worker that dies is started again
-// on the next request (it rebuilds its index; /api/health says "building" meanwhile).
+// The app's handle on its search workers (worker.ts): config.searchWorkers threads
+// per app instance, started with the first router, stopped with the app. Each holds
+// its own copy of the index; a search goes to the worker with the fewest waiting.
+// Requests and answers are messages; errors come back as HttpErrors. A worker that
+// dies is started again on its next request (it rebuilds its index; /api/health
+// says "building" meanwhile).
 import { Worker } from 'node:worker_threads';
-import { committedTransactions } from '../../db/client';
+import { localWrites } from '../../db/client';
 import type { Actor } from '../../shared/policy';
 import type { SearchQuery, SearchResponse } from '../../shared/schemas/search';
 import type { AppContext } from '../context';
@@ -16,8 +18,10 @@ type Request = WorkerRequest extends infer R ? (R extends { id: number } ? Omit<
 
 const STARTING: SearchIndexStatus = { state: 'starting', shops: { ready: 0, building: 0 }, cases: 0, lastChangeId: 0, buildMs: null };
 const entry = new URL(`./worker.${import.meta.url.endsWith('.ts') ? 'ts' : 'js'}`, import.meta.url).href;
+const unavailable = (why: string) => new HttpError(503, 'search_unavailable', why);
 
-export class SearchClient {
+/** One worker thread and the requests waiting on it. */
+class SearchWorker {
   private worker: Worker | null = null;
   private pending = new Map<number, Pending>();
   private nextId = 1;
@@ -27,13 +31,18 @@ export class SearchClient {
     this.start();
   }
 
-  search(actor: Actor, query: SearchQuery): Promise<SearchResponse> {
-    return this.send({ kind: 'search', actor, query, commits: committedTransactions() }) as Promise<SearchResponse>;
+  get waiting(): number {
+    return this.pending.size;
   }
 
-  async status(): Promise<SearchIndexStatus> {
-    if (this.stopped) return { ...STARTING, state: 'stopped' };
-    return ((await this.send({ kind: 'status' }).catch(() => null)) as SearchIndexStatus | null) ?? STARTING;
+  send(req: Request): Promise<unknown> {
+    if (this.stopped) return Promise.reject(unavailable('Search is shut down.'));
+    const worker = this.worker ?? this.start();
+    const id = this.nextId++;
+    return new Promise((resolve, reject) => {
+      this.pending.set(id, { resolve, reject });
+      worker.postMessage({ ...req, id } as WorkerRequest);
+    });
   }
 
   async stop(): Promise<void> {
@@ -56,21 +65,11 @@ export class SearchClient {
       if (this.worker === worker) this.worker = null;
       for (const [id, p] of this.pending) {
         this.pending.delete(id);
-        p.reject(new HttpError(503, 'search_unavailable', 'Search is restarting. Try again in a moment.'));
+        p.reject(unavailable('Search is restarting. Try again in a moment.'));
       }
     });
     this.worker = worker;
     return worker;
-  }
-
-  private send(req: Request): Promise<unknown> {
-    if (this.stopped) return Promise.reject(new HttpError(503, 'search_unavailable', 'Search is shut down.'));
-    const worker = this.worker ?? this.start();
-    const id = this.nextId++;
-    return new Promise((resolve, reject) => {
-      this.pending.set(id, { resolve, reject });
-      worker.postMessage({ ...req, id } as WorkerRequest);
-    });
   }
 
   private settle(reply: WorkerReply) {
@@ -82,7 +81,59 @@ export class SearchClient {
   }
 }
 
-// One worker per app instance (per AppContext): two createApp calls are two instances.
+/** Several workers' index states as one: ready when all are, as far along as the slowest. */
+function combine(states: SearchIndexStatus[]): SearchIndexStatus {
+  const order: SearchIndexStatus['state'][] = ['error', 'stopped', 'starting', 'building', 'ready'];
+  const state = order.find((s) => states.some((x) => x.state === s)) ?? 'starting';
+  const min = (f: (s: SearchIndexStatus) => number) => Math.min(...states.map(f));
+  return {
+    state,
+    shops: { ready: min((s) => s.shops.ready), building: Math.max(...states.map((s) => s.shops.building)) },
+    cases: min((s) => s.cases),
+    lastChangeId: min((s) => s.lastChangeId),
+    buildMs: states.some((s) => s.buildMs === null) ? null : Math.max(...states.map((s) => s.buildMs!)),
+  };
+}
+
+export class SearchClient {
+  private readonly workers: SearchWorker[];
+  private turn = 0;
+  private stopped = false;
+
+  constructor(ctx: AppContext) {
+    this.workers = Array.from({ length: ctx.config.searchWorkers }, () => new SearchWorker(ctx));
+  }
+
+  search(actor: Actor, query: SearchQuery): Promise<SearchResponse> {
+    const worker = this.leastBusy();
+    return worker.send({ kind: 'search', actor, query, writes: localWrites() }) as Promise<SearchResponse>;
+  }
+
+  /** The worker with the fewest searches waiting; ties go round in turn. */
+  private leastBusy(): SearchWorker {
+    const n = this.workers.length;
+    const start = this.turn++ % n;
+    let best = this.workers[start]!;
+    for (let i = 1; i < n; i++) {
+      const w = this.workers[(start + i) % n]!;
+      if (w.waiting < best.waiting) best = w;
+    }
+    return best;
+  }
+
+  async status(): Promise<SearchIndexStatus> {
+    if (this.stopped) return { ...STARTING, state: 'stopped' };
+    const states = await Promise.all(this.workers.map((w) => w.send({ kind: 'status' }).catch(() => STARTING) as Promise<SearchIndexStatus>));
+    return combine(states);
+  }
+
+  async stop(): Promise<void> {
+    this.stopped = true;
+    await Promise.all(this.workers.map((w) => w.stop()));
+  }
+}
+
+// One client per app instance (per AppContext): two createApp calls are two instances.
 const clients = new WeakMap<AppContext, SearchClient>();
 
 export function searchClientFor(ctx: AppContext): SearchClient {
@@ -99,7 +150,7 @@ export function searchIndexStatus(ctx: AppContext): Promise<SearchIndexStatus> {
   return clients.get(ctx)?.status() ?? Promise.resolve(STARTING);
 }
 
-/** Stops the app's search worker (app shutdown). */
+/** Stops the app's search workers (app shutdown). */
 export function stopSearch(ctx: AppContext): Promise<void> {
   return clients.get(ctx)?.stop() ?? Promise.resolve();
 }

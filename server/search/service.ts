@@ -1,7 +1,7 @@
 // Search for one app instance: an index per shop, built lazily in the
 // background, kept live by following the change log (server/changes).
 // Before answering, a search reads the log (id > last seen, a primary-key range)
-// when this process has committed a transaction since the last read, so a change
+// when this process has written since the last read (db/client localWrites), so a change
 // made here is found on the very next search; a 500 ms poll brings in changes
 // made through other instances (and keeps idle ones current).
 import { performance } from 'node:perf_hooks';
@@ -11,7 +11,7 @@ import type { Actor } from '../../shared/policy';
 import { CONTEXT_TAGS, parseQuery, removableChips, structuredKeys } from '../../shared/search';
 import type { SearchQuery, SearchResponse, SearchResult } from '../../shared/schemas/search';
 import type { AppContext } from '../context';
-import { committedTransactions } from '../../db/client';
+import { localWrites } from '../../db/client';
 import { notFound } from '../http/errors';
 import { type Change, lastChangeId, loadCasePage, loadCases, loadChanges, loadPlatforms } from './loader';
 import { type IndexedCandidate, ShopIndex } from './shop-index';
@@ -43,8 +43,8 @@ export interface SearchServiceOptions {
   warm?: boolean;
   /** follow the change log every POLL_MS (default true) */
   poll?: boolean;
-  /** transactions committed by the app this service answers for (default: this thread's) */
-  commitCount?: () => number;
+  /** the app's write count (db/client localWrites) this service answers for (default: this thread's) */
+  writeCount?: () => number;
 }
 
 export interface SearchIndexStatus {
@@ -58,8 +58,8 @@ export interface SearchIndexStatus {
 export class SearchService {
   private shops = new Map<number, ShopState>();
   private lastSeen = 0;
-  /** committedTransactions() when the last log read started */
-  private commitsSeen = -1;
+  /** localWrites() when the last log read started */
+  private writesSeen = -1;
   private started: Promise<void>;
   private running: Promise<void> | null = null;
   private next: Promise<void> | null = null;
@@ -67,13 +67,13 @@ export class SearchService {
   private stopped = false;
   private failed: string | null = null;
 
-  private readonly commitCount: () => number;
+  private readonly writeCount: () => number;
 
   constructor(
     private readonly ctx: SearchContext,
     options: SearchServiceOptions = {},
   ) {
-    this.commitCount = options.commitCount ?? committedTransactions;
+    this.writeCount = options.writeCount ?? localWrites;
     // the log position is read before any shop is built, so no change can fall between
     this.started = lastChangeId(ctx.db).then((id) => {
       this.lastSeen = id;
@@ -186,7 +186,7 @@ export class SearchService {
 
   private async followOnce() {
     await this.started;
-    this.commitsSeen = this.commitCount();
+    this.writesSeen = this.writeCount();
     for (;;) {
       const changes = await loadChanges(this.ctx.db, this.lastSeen);
       if (changes.length === 0) return;
@@ -221,7 +221,7 @@ export class SearchService {
   /** One search, as GET /api/search answers it. */
   async search(actor: Actor, query: SearchQuery): Promise<SearchResponse> {
     const t0 = performance.now();
-    if (this.commitCount() !== this.commitsSeen) await this.catchUp();
+    if (this.writeCount() !== this.writesSeen) await this.catchUp();
     const state = this.shop(actor.shopId);
     const building = state.building;
     await state.ready;

@@ -81,9 +81,9 @@ export interface IndexResult {
 }
 
 /** Candidates that go through the full ranking: enough that the cheap score's blind spots (banks, groups) cannot hide a top result. */
-const FULL_RANK_MIN = 100;
+const FULL_RANK_MIN = 50;
 /** Text hits kept (best first): past a few hundred they only add noise and time. */
-const TEXT_HITS_MAX = 500;
+const TEXT_HITS_MAX = 200;
 /** Below this many AND hits, and with no exact-key match, the text search falls back to OR. */
 const AND_FALLBACK_BELOW = 5;
 
@@ -365,7 +365,7 @@ export class ShopIndex {
     const filtered = Boolean(q.filters.status || q.filters.platformId || q.filters.code || q.filters.tag);
     // the policy's answer for someone else's draft holds for every draft but the caller's own
     const seesAllDrafts = canSeeCase(q.actor, { status: 'draft', authorId: -1 });
-    const top = new TopK(Math.max(FULL_RANK_MIN, q.limit * 5));
+    const top = new TopK(Math.max(FULL_RANK_MIN, q.limit * 3));
     // quality x recency is at most this, so a case whose points cannot beat the bar is skipped unread
     const bestQuality = W.fixConfirmed * Math.max(...Object.values(W.status));
     let bar = -Infinity;

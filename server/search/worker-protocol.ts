@@ -4,8 +4,8 @@ import type { SearchQuery, SearchResponse } from '../../shared/schemas/search';
 import type { SearchIndexStatus } from './service';
 
 export type WorkerRequest =
-  /** `commits`: transactions the app had committed when the request came in (see SearchService) */
-  | { kind: 'search'; id: number; actor: Actor; query: SearchQuery; commits: number }
+  /** `writes`: the app's write count (db/client localWrites) when the request came in */
+  | { kind: 'search'; id: number; actor: Actor; query: SearchQuery; writes: number }
   | { kind: 'status'; id: number }
   | { kind: 'stop'; id: number };
 

@@ -14,8 +14,8 @@ const { config } = workerData as { config: Config };
 const port = parentPort!;
 const database = connect(config.db, { connectionLimit: 4 });
 const log = pino({ level: config.logLevel }).child({ thread: 'search' });
-let appCommits = 0;
-const service = new SearchService({ db: database.db, log }, { commitCount: () => appCommits });
+let appWrites = 0;
+const service = new SearchService({ db: database.db, log }, { writeCount: () => appWrites });
 
 function toWorkerError(err: unknown): WorkerError {
   if (err instanceof HttpError) return { status: err.status, code: err.code, message: err.message };
@@ -27,7 +27,7 @@ async function answer(req: WorkerRequest): Promise<WorkerReply> {
   try {
     switch (req.kind) {
       case 'search':
-        appCommits = Math.max(appCommits, req.commits);
+        appWrites = Math.max(appWrites, req.writes);
         return { id: req.id, ok: true, value: await service.search(req.actor, req.query) };
       case 'status':
         return { id: req.id, ok: true, value: service.status() };
