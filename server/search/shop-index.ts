@@ -1,9 +1,10 @@
 // One shop's search index, in memory: the case fields ranking needs (never the
 // body), exact-lookup postings (codes, families, system groups, cylinders,
-// tags, recent work, platforms, status) and a minisearch text index.
+// tags, recent work, platforms, status) and a text index (text-index.ts).
 // A search first collects candidates from the postings and the text index
-// with a cheap additive score, keeps the best few hundred, and only those go
-// through the full explained ranking (shared/search/rank.ts).
+// with a cheap additive score, keeps the best few dozen, and only those go
+// through the full explained ranking (shared/search/rank.ts). The loops that
+// touch every candidate read typed arrays only (SlotColumns, CandidatePoints).
 import { codeFacts, type CodeFacts, validCodeFacts } from '../../shared/search/code-facts';
 import { type Platform, platformSimilarity } from '../../shared/platform';
 import { canSeeCase, type Actor } from '../../shared/policy';
@@ -82,7 +83,7 @@ export interface IndexResult {
 
 /** Candidates that go through the full ranking: enough that the cheap score's blind spots (banks, groups) cannot hide a top result. */
 const FULL_RANK_MIN = 50;
-/** Text hits kept (best first): past a few hundred they only add noise and time. */
+/** Text hits kept (best first): past a couple of hundred they only add noise and time. */
 const TEXT_HITS_MAX = 200;
 /** Below this many AND hits, and with no exact-key match, the text search falls back to OR. */
 const AND_FALLBACK_BELOW = 5;
