@@ -22,7 +22,7 @@ import { kebabToWords, unique } from '../../shared/search/text';
 import { indexTerm, MATCH_WEIGHTS, TEXT_FIELDS, textFieldsOf } from './text-fields';
 import { MAX_GROUPS, TextIndex, type TextGroupQuery, type TextHit } from './text-index';
 import { KeyPostings } from './key-postings';
-import { CandidatePoints } from './slot-list';
+import { CandidatePoints, withRoom } from './slot-list';
 import { TopK } from './top-k';
 
 export interface CaseRow {
@@ -41,20 +41,12 @@ export interface CaseRow {
   updatedAt: Date;
 }
 
-interface Doc {
-  id: number;
-  title: string;
-  codes: string[];
-  symptoms: string[];
-  context: string[];
-  platformId: number | null;
-  status: CaseStatus;
-  authorId: number;
+/** What the index keeps of a case: the row without its text, plus what searches derive from it. */
+type Doc = Omit<CaseRow, 'body' | 'rootCause' | 'fix' | 'confirmedAt'> & {
   fixConfirmed: boolean;
-  updatedAt: Date;
   keys: string[];
   codeFacts: CodeFacts[];
-}
+};
 
 export interface SearchFilters {
   platformId?: number;
@@ -120,6 +112,8 @@ function keysOf(c: { codes: string[]; symptoms: string[]; context: string[]; pla
 const EPOCH_MS = Date.UTC(2020, 0, 1);
 const HALF_LIFE_MS = W.recency.halfLifeDays * DAY_MS;
 const DRAFT = caseStatuses.indexOf('draft');
+/** The most quality x recency can be: fix confirmed, best status, updated now. */
+const BEST_QUALITY = W.fixConfirmed * Math.max(...Object.values(W.status));
 
 /**
  * Per-slot columns in typed arrays, for the loops that touch every candidate
@@ -136,18 +130,11 @@ class SlotColumns {
   growth = new Float64Array(1024);
 
   ensure(n: number) {
-    if (this.status.length >= n) return;
-    const size = Math.max(n, this.status.length * 2);
-    const grow = <T extends Uint8Array | Int32Array | Float64Array>(a: T, make: new (n: number) => T): T => {
-      const b = new make(size);
-      b.set(a);
-      return b;
-    };
-    this.status = grow(this.status, Uint8Array);
-    this.author = grow(this.author, Int32Array);
-    this.platform = grow(this.platform, Int32Array);
-    this.quality = grow(this.quality, Float64Array);
-    this.growth = grow(this.growth, Float64Array);
+    this.status = withRoom(this.status, n);
+    this.author = withRoom(this.author, n);
+    this.platform = withRoom(this.platform, n);
+    this.quality = withRoom(this.quality, n);
+    this.growth = withRoom(this.growth, n);
   }
 
   set(slot: number, d: Doc) {
@@ -367,9 +354,7 @@ export class ShopIndex {
     // the policy's answer for someone else's draft holds for every draft but the caller's own
     const seesAllDrafts = canSeeCase(q.actor, { status: 'draft', authorId: -1 });
     const top = new TopK(Math.max(FULL_RANK_MIN, q.limit * 3));
-    // quality x recency is at most this, so a case whose points cannot beat the bar is skipped unread
-    const bestQuality = W.fixConfirmed * Math.max(...Object.values(W.status));
-    let bar = -Infinity;
+    let bar = -Infinity; // a case whose points x BEST_QUALITY cannot beat it is skipped unread
     let total = 0;
     for (let i = 0; i < touched.length; i++) {
       const slot = touched.items[i]!;
@@ -377,7 +362,7 @@ export class ShopIndex {
       if (filtered && !this.passesFilters(this.docs[slot]!, q.filters)) continue;
       total++;
       const pts = points[slot]! + (platformPts[platform[slot]!] ?? 0);
-      if (pts * bestQuality <= bar) continue;
+      if (pts * BEST_QUALITY <= bar) continue;
       const score = pts * quality[slot]! * (floor + (1 - floor) * Math.min(1, decayNow * growth[slot]!));
       if (score > bar) {
         top.push(slot, score);

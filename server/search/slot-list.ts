@@ -3,17 +3,23 @@
 // per query land in V8's large-object space, which only a full garbage
 // collection of the whole (index-sized) heap frees.
 
+type NumberArray = Int32Array | Uint16Array | Uint8Array | Float64Array;
+
+/** `a` itself when it holds `min` entries, else a copy with room for them (at least twice as long). */
+export function withRoom<T extends NumberArray>(a: T, min: number): T {
+  if (a.length >= min) return a;
+  const grown = new (a.constructor as new (n: number) => T)(Math.max(min, a.length * 2));
+  grown.set(a);
+  return grown;
+}
+
 /** A growable list of slot numbers in one Int32Array. */
 export class SlotList {
   items = new Int32Array(1024);
   length = 0;
 
   push(slot: number) {
-    if (this.length === this.items.length) {
-      const grown = new Int32Array(this.items.length * 2);
-      grown.set(this.items);
-      this.items = grown;
-    }
+    this.items = withRoom(this.items, this.length + 1);
     this.items[this.length++] = slot;
   }
 
@@ -28,10 +34,7 @@ export class CandidatePoints {
   readonly touched = new SlotList();
 
   ensure(slots: number) {
-    if (this.points.length >= slots) return;
-    const grown = new Float64Array(Math.max(slots, this.points.length * 2));
-    grown.set(this.points);
-    this.points = grown;
+    this.points = withRoom(this.points, slots);
   }
 
   get size(): number {

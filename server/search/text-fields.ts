@@ -16,19 +16,10 @@ const NOTE_WORDS = new Set([
   'first', 'went', 'came', 'done', 'checked', 'check', 'put', 'new', 'old', 'other', 'others', 'same', 'each', 'only',
 ]);
 
-// Words repeat across notes far more than they vary: stem each spelling once.
-const STEMS = new Map<string, string | null>();
-const STEMS_MAX = 200_000;
-
-/** Index term of a word: lower case, stop words dropped, lightly stemmed (misfiring = misfire). */
+/** Index term of a word: lower case, stop words dropped, lightly stemmed (misfiring = misfire; stem keeps its own memo). */
 export function indexTerm(word: string): string | null {
-  const hit = STEMS.get(word);
-  if (hit !== undefined) return hit;
   const w = word.toLowerCase();
-  const term = w.length < 2 || w.length > 40 || STOP_WORDS.has(w) ? null : stem(w);
-  if (STEMS.size >= STEMS_MAX) STEMS.clear();
-  STEMS.set(word, term);
-  return term;
+  return w.length < 2 || w.length > 40 || STOP_WORDS.has(w) ? null : stem(w);
 }
 
 /** The most frequent content words of a note body, at most `max`, most frequent first. */

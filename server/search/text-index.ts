@@ -8,7 +8,7 @@
 // (docs/performance.md). Here the same scores come from a scan of two flat
 // arrays per term. test/server/text-index.test.ts checks them against MiniSearch.
 import SearchableMap from 'minisearch/SearchableMap';
-import { SlotList } from './slot-list';
+import { SlotList, withRoom } from './slot-list';
 import { TopK } from './top-k';
 
 /** minisearch's BM25+ defaults (k1, length normalisation b, BM25+ delta d). */
@@ -55,14 +55,8 @@ class Posting {
   size = 0;
 
   add(slot: number, tf: number) {
-    if (this.size === this.slots.length) {
-      const slots = new Int32Array(this.size * 2);
-      slots.set(this.slots);
-      this.slots = slots;
-      const tfs = new Uint8Array(this.size * 2);
-      tfs.set(this.tfs);
-      this.tfs = tfs;
-    }
+    this.slots = withRoom(this.slots, this.size + 1);
+    this.tfs = withRoom(this.tfs, this.size + 1);
     this.slots[this.size] = slot;
     this.tfs[this.size] = Math.min(tf, 255);
     this.size++;
@@ -77,13 +71,6 @@ class Posting {
     this.tfs[at] = this.tfs[this.size]!;
   }
 }
-
-const grow = <T extends Int32Array | Uint16Array | Uint8Array | Float64Array>(a: T, min: number, make: (n: number) => T): T => {
-  if (a.length >= min) return a;
-  const b = make(Math.max(min, a.length * 2));
-  b.set(a);
-  return b;
-};
 
 export class TextIndex {
   private dict = new SearchableMap<number>();
@@ -285,9 +272,9 @@ export class TextIndex {
 
   private ensureSlot(slot: number) {
     const n = slot + 1;
-    this.fieldLength = this.fieldLength.map((a) => grow(a, n, (m) => new Uint16Array(m)));
-    this.scores = grow(this.scores, n, (m) => new Float64Array(m));
-    this.masks = grow(this.masks, n, (m) => new Uint8Array(m));
+    for (let f = 0; f < this.fieldLength.length; f++) this.fieldLength[f] = withRoom(this.fieldLength[f]!, n);
+    this.scores = withRoom(this.scores, n);
+    this.masks = withRoom(this.masks, n);
   }
 }
 
