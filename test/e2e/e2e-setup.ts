@@ -3,7 +3,7 @@ import type { TestProject } from 'vitest/node';
 import { buildWebIfChanged } from '../../server/cli/web-build';
 import { startServer } from '../../server/index';
 import { seedDemoShop } from '../../server/seed/seed';
-import { testConfig } from '../support/env';
+import { E2E_PORT, testConfig } from '../support/env';
 import { createTestDatabase } from '../support/test-db';
 
 declare module 'vitest' {
@@ -11,8 +11,6 @@ declare module 'vitest' {
     baseUrl: string;
   }
 }
-
-export const E2E_PORT = 8099;
 
 export default async function setup(project: TestProject) {
   const base = testConfig({ PORT: String(E2E_PORT) });

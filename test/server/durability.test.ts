@@ -12,12 +12,12 @@ import { applyMigrations, connect } from '../../db/client';
 import { ensureAppDatabase, localServerPaths, startLocalServer, stopLocalServer } from '../../db/local-server';
 import { shops, users } from '../../db/schema';
 import { hashPassword } from '../../server/auth/passwords';
-import { testConfig } from '../support/env';
+import { TEST_PORT_OFFSET, testConfig } from '../support/env';
 
 const WRITES = Number(process.env.DURABILITY_WRITES ?? 1000);
 const KILL_AFTER = Math.floor(WRITES * 0.4);
-const PORT = 8097;
-const env = { DATA_DIR: mkdtempSync(path.join(os.tmpdir(), 'cw-durable-')), DB_PORT: '3392', DB_NAME: 'causeway', PORT: String(PORT) };
+const PORT = 8097 + TEST_PORT_OFFSET;
+const env = { DATA_DIR: mkdtempSync(path.join(os.tmpdir(), 'cw-durable-')), DB_PORT: String(3392 + TEST_PORT_OFFSET), DB_NAME: 'causeway', PORT: String(PORT) };
 const config = testConfig(env);
 const root = path.resolve(import.meta.dirname, '../..');
 let server: ChildProcess | null = null;

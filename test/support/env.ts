@@ -1,7 +1,11 @@
 // Test configuration: the same private MariaDB as npm start, a mail catcher on ports of its own.
 import { loadConfig, type Config } from '../../server/config';
 
-export const TEST_MAIL = { smtp: 1026, web: 1081 };
+// Several checkouts on one machine can run their suites at once: each sets its own offset.
+export const TEST_PORT_OFFSET = Number(process.env.CAUSEWAY_TEST_PORT_OFFSET ?? 0);
+
+export const TEST_MAIL = { smtp: 1026 + TEST_PORT_OFFSET, web: 1081 + TEST_PORT_OFFSET };
+export const E2E_PORT = 8099 + TEST_PORT_OFFSET;
 
 export function testConfig(overrides: Record<string, string> = {}): Config {
   return loadConfig({
