@@ -2,7 +2,7 @@
 // Pulls out trouble codes (with FTB and status when stated), the VIN and the
 // odometer reading. Heuristics, each documented beside its rule.
 import { decodeUdsStatus, findDtcMentions, parseDtc, type Dtc } from './codes';
-import { checkVin } from './vin';
+import { checkVin, followsNorthAmericanRules } from './vin';
 
 export type ScanCodeStatus = 'pending' | 'confirmed' | 'permanent' | 'history' | 'active';
 export interface ScanCode {
@@ -315,7 +315,7 @@ function findVins(line: string, found: Found): void {
   for (const m of line.matchAll(VIN_TOKEN)) {
     const token = m[0].toUpperCase();
     if (VIN_LABEL.test(line.slice(0, m.index))) found.labelledVins.push(token);
-    else if (/[A-Z]/.test(token) && checkVin(token).valid) found.plainVins.push(token);
+    else if (/[A-Z]/.test(token) && followsNorthAmericanRules(checkVin(token))) found.plainVins.push(token);
   }
 }
 

@@ -13,7 +13,13 @@ export interface VinCheck {
   vds: string | null;
   vis: string | null;
   modelYears: number[];
+  /** what no VIN can be (length, characters): the VIN is refused */
   errors: string[];
+  /**
+   * North American rules (49 CFR 565: check digit, model-year code) that this VIN does not follow.
+   * ISO 3779 requires neither outside North America, so these never refuse a VIN.
+   */
+  warnings: string[];
 }
 
 export const VIN_LENGTH = 17;
@@ -113,12 +119,17 @@ export function checkVin(input: string): VinCheck {
   const full = vin.length === VIN_LENGTH;
   const checkDigit = full ? vin.charAt(8) : null;
   const expectedCheckDigit = full && charErrors.length === 0 ? vinCheckDigit(vin) : null;
+  const warnings: string[] = [];
   if (checkDigit !== null && expectedCheckDigit !== null && checkDigit !== expectedCheckDigit) {
-    errors.push(`The check digit is ${checkDigit} but the VIN computes ${expectedCheckDigit}.`);
+    warnings.push(
+      `Check digit does not match (position 9 is ${checkDigit}, the VIN computes ${expectedCheckDigit}): only required for North American vehicles.`,
+    );
   }
   const yearChar = full ? vin.charAt(9) : '';
-  if (full && !/^[IOQ]$/.test(yearChar) && !MODEL_YEAR_CODES.includes(yearChar)) {
-    errors.push(`Position 10 is "${yearChar}", which is never used for a model year (U, Z and 0 are not model-year codes).`);
+  if (full && charErrors.length === 0 && !MODEL_YEAR_CODES.includes(yearChar)) {
+    warnings.push(
+      `Position 10 is "${yearChar}", which is not a North American model-year code: the year is not read from it (only required for North American vehicles).`,
+    );
   }
   return {
     vin,
@@ -130,6 +141,7 @@ export function checkVin(input: string): VinCheck {
     vis: full ? vin.slice(9) : null,
     modelYears: full ? modelYearCandidates(vin) : [],
     errors: errors.map(capitalise),
+    warnings,
   };
 }
 
@@ -137,7 +149,12 @@ function capitalise(s: string): string {
   return s.charAt(0).toUpperCase() + s.slice(1);
 }
 
-/** A VIN field: trims and upper-cases, fails with checkVin's first error. */
+/** True when the VIN also follows every North American rule (49 CFR 565). */
+export function followsNorthAmericanRules(check: VinCheck): boolean {
+  return check.valid && check.warnings.length === 0;
+}
+
+/** A VIN field: trims and upper-cases, fails with checkVin's first error (warnings never refuse). */
 export const vinSchema: z.ZodType<string> = z
   .string()
   .transform((v) => normalise(v))

@@ -4,7 +4,7 @@ import { useState } from 'react';
 import { Pressable, View } from 'react-native';
 import { parseDtc } from '../../shared/codes';
 import { tagSchema } from '../../shared/schemas/cases';
-import { checkVin } from '../../shared/vin';
+import { checkVin, type VinCheck } from '../../shared/vin';
 import { useTheme } from '../theme/use-theme';
 import { CodeChip } from '../ui/badges';
 import { Button } from '../ui/button';
@@ -138,26 +138,22 @@ export function PlatformPicker({ value, onChange }: { value: number | null; onCh
   return <Choice label="Platform" options={options} value={value === null ? '' : String(value)} onChange={(v) => onChange(v ? Number(v) : null)} />;
 }
 
-/** The VIN check as you type: ✓ with the model-year candidates, or the first problem found. */
+/** One line for a VIN check: the first refusal, else the first North American warning, else ✓ with the years. */
+function VinCheckLine({ check }: { check: VinCheck }) {
+  if (!check.valid) return <Text variant="small" tone="brick" role="status">✕ {check.errors[0]}</Text>;
+  if (check.warnings.length) return <Text variant="small" tone="amber" role="status">! {check.warnings[0]}</Text>;
+  const years = check.modelYears.length ? ` · model year ${check.modelYears.join(' or ')}` : '';
+  return <Text variant="small" tone="moss" role="status">✓ Valid VIN (check digit {check.checkDigit}){years}</Text>;
+}
+
+/** The VIN check as you type: ✓ with the model-year candidates, a warning, or the first problem found. */
 export function VinField({ value, onChange, error }: { value: string; onChange: (v: string) => void; error?: string }) {
   const t = useTheme();
   const check = value.trim() ? checkVin(value) : null;
   return (
     <View style={{ gap: t.space.xs }}>
       <TextField label="VIN" mono autoCapitalize="characters" autoCorrect={false} maxLength={20} value={value} onChangeText={onChange} error={error} />
-      {check ? (
-        check.valid ? (
-          <Text variant="small" tone="moss" role="status">
-            ✓ Valid VIN (check digit {check.checkDigit}){check.modelYears.length ? ` · model year ${check.modelYears.join(' or ')}` : ''}
-          </Text>
-        ) : (
-          <Text variant="small" tone="brick" role="status">
-            ✕ {check.errors[0]}
-          </Text>
-        )
-      ) : (
-        <Text variant="small" tone="slate">17 characters; checked as you type</Text>
-      )}
+      {check ? <VinCheckLine check={check} /> : <Text variant="small" tone="slate">17 characters; checked as you type</Text>}
     </View>
   );
 }

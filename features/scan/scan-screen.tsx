@@ -80,23 +80,18 @@ function Found({ report }: { report: ScanReportView }) {
               <Text mono weight="semibold" selectable>
                 {report.vin}
               </Text>
-              {report.vinCheck?.valid ? <Badge label="Check digit OK" symbol="✓" tone="moss" /> : <Badge label="VIN does not check" symbol="✕" tone="brick" />}
+              {vinBadge(report.vinCheck)}
             </Row>
             {report.vinCheck?.modelYears.length ? (
               <Text variant="small" tone="slate">
                 Model year {report.vinCheck.modelYears.join(' or ')} (position 10)
               </Text>
             ) : null}
-            {report.vinCheck?.errors.map((e) => (
-              <Text key={e} variant="small" tone="brick">
+            {[...(report.vinCheck?.errors ?? []), ...(report.vinCheck?.warnings ?? [])].map((e) => (
+              <Text key={e} variant="small" tone={report.vinCheck?.valid ? 'slate' : 'brick'}>
                 {e}
               </Text>
             ))}
-            {report.vinCheck && !report.vinCheck.valid ? (
-              <Text variant="small" tone="slate">
-                Vehicles built for outside North America may not use a check digit: compare with the VIN plate.
-              </Text>
-            ) : null}
           </View>
         ) : (
           <Text tone="slate">No VIN in this report.</Text>
@@ -196,4 +191,10 @@ export function ScanScreen() {
       )}
     </Screen>
   );
+}
+
+function vinBadge(check: ScanReportView['vinCheck']) {
+  if (!check?.valid) return <Badge label="Not a VIN" symbol="✕" tone="brick" />;
+  if (check.warnings.length) return <Badge label="VIN outside North American rules" symbol="!" tone="amber" />;
+  return <Badge label="Check digit OK" symbol="✓" tone="moss" />;
 }

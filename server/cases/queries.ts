@@ -4,6 +4,7 @@ import { and, asc, desc, eq, isNotNull, isNull, ne, or, sql, type SQL } from 'dr
 import type { Db } from '../../db/client';
 import { attachments, caseCodes, caseComments, cases, caseTags, platforms, users, vehicles } from '../../db/schema';
 import { parseDtc } from '../../shared/codes';
+import { checkVin } from '../../shared/vin';
 import { canConfirmFix, canEditCase, canPublish, isSeniorOrAbove, type Actor } from '../../shared/policy';
 import type { CaseDetail, CaseListQuery, CaseSummary } from '../../shared/schemas/cases';
 import type { AppContext } from '../context';
@@ -43,7 +44,7 @@ function toSummary(r: SummaryRow): CaseSummary {
     codes: r.codes as string[],
     symptoms: r.symptoms as string[],
     platform: r.platformId ? { id: r.platformId as number, make: r.make as string, model: r.model as string, engine: r.engine as string } : null,
-    vehicle: r.vehicleId ? { id: r.vehicleId as number, vin: r.vin as string, plate: (r.plate as string | null) ?? null } : null,
+    vehicle: r.vehicleId ? vehicleRef(r.vehicleId as number, r.vin as string, (r.plate as string | null) ?? null) : null,
     author: { id: r.authorId as number, name: r.authorName as string },
     fixConfirmed: r.confirmedAt !== null,
     updatedAt: r.updatedAt.toISOString(),
@@ -163,4 +164,8 @@ export async function listTags(ctx: AppContext, actor: Actor) {
     .groupBy(caseTags.tag)
     .orderBy(desc(sql`COUNT(*)`), asc(caseTags.tag));
   return rows.map((r) => ({ tag: r.tag, count: Number(r.count) }));
+}
+
+function vehicleRef(id: number, vin: string, plate: string | null) {
+  return { id, vin, plate, vinWarnings: checkVin(vin).warnings };
 }

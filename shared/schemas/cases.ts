@@ -114,7 +114,15 @@ export const caseSummarySchema = z.object({
   codes: z.array(z.string()),
   symptoms: z.array(z.string()),
   platform: platformRefSchema.nullable(),
-  vehicle: z.object({ id: z.number(), vin: z.string(), plate: z.string().nullable() }).nullable(),
+  vehicle: z
+    .object({
+      id: z.number(),
+      vin: z.string(),
+      plate: z.string().nullable(),
+      /** North American rules this VIN does not follow (never a refusal: see shared/vin.ts) */
+      vinWarnings: z.array(z.string()).default([]),
+    })
+    .nullable(),
   author: personSchema,
   fixConfirmed: z.boolean(),
   updatedAt: z.string(),

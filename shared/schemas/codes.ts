@@ -93,6 +93,7 @@ export const vinCheckSchema = z.object({
   vis: z.string().nullable(),
   modelYears: z.array(z.number()),
   errors: z.array(z.string()),
+  warnings: z.array(z.string()),
 });
 export type VinCheckView = z.infer<typeof vinCheckSchema>;
 

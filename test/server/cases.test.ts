@@ -65,10 +65,19 @@ describe('creating cases', () => {
     expect(res.body.error.fields['codes.1']).toMatch(/first letter/i);
   });
 
-  it('rejects a VIN with a wrong check digit (49 CFR 565.15: 1M8GDM9AXKP042788 computes X)', async () => {
+  it('accepts a VIN with a wrong check digit, with a warning (49 CFR 565.15: 1M8GDM9AXKP042788 computes X)', async () => {
+    // ISO 3779 has no check digit: a vehicle built for outside North America is normal, not an error.
     const res = await post(as.technician!, '/api/cases', { ...draft, platformId, vehicle: { vin: '1M8GDM9A1KP042788' } });
+    expect(res.status).toBe(201);
+    const saved = await as.technician!.agent.get(`/api/cases/${res.body.id}`).expect(200);
+    expect(saved.body.vehicle.vin).toBe('1M8GDM9A1KP042788');
+    expect(saved.body.vehicle.vinWarnings[0]).toMatch(/check digit does not match.*only required for North American vehicles/i);
+  });
+
+  it('refuses only what no VIN can be (17 characters, no I, O or Q: ISO 3779)', async () => {
+    const res = await post(as.technician!, '/api/cases', { ...draft, platformId, vehicle: { vin: '1M8GDM9AXKP04278Q' } });
     expect(res.status).toBe(400);
-    expect(res.body.error.fields['vehicle.vin']).toMatch(/check digit/i);
+    expect(res.body.error.fields['vehicle.vin']).toMatch(/I, O and Q/);
   });
 
   it('lets only seniors and managers create a published case', async () => {

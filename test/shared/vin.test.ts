@@ -7,6 +7,7 @@ import {
   modelYearCode,
   vinCharValue,
   vinCheckDigit,
+  followsNorthAmericanRules,
   vinSchema,
   vinWeightedSum,
 } from '../../shared/vin';
@@ -84,16 +85,33 @@ describe('checkVin', () => {
     expect(r.valid).toBe(true);
   });
 
-  it('reports a check digit mismatch with both digits', () => {
+  it('accepts a check digit mismatch with a warning naming both digits (ISO 3779 needs no check digit)', () => {
+    // 49 CFR 565.15(c) requires the check digit for North American vehicles only; ISO 3779 has none.
     const r = checkVin('1G4AH59H55G118341');
-    expect(r.valid).toBe(false);
+    expect(r.valid).toBe(true);
+    expect(followsNorthAmericanRules(r)).toBe(false);
     expect(r.checkDigit).toBe('5');
     expect(r.expectedCheckDigit).toBe('4');
-    expect(r.errors).toEqual(['The check digit is 5 but the VIN computes 4.']);
+    expect(r.errors).toEqual([]);
+    expect(r.warnings).toEqual([
+      'Check digit does not match (position 9 is 5, the VIN computes 4): only required for North American vehicles.',
+    ]);
   });
 
-  it('reports a letter other than X in position 9 as a mismatch', () => {
-    expect(checkVin('1M8GDM9AAKP042788').errors[0]).toContain('check digit is A but the VIN computes X');
+  it('warns about a letter other than X in position 9 as a mismatch', () => {
+    expect(checkVin('1M8GDM9AAKP042788').warnings[0]).toContain('position 9 is A, the VIN computes X');
+  });
+
+  it('a VIN that follows every rule has no warnings', () => {
+    const r = checkVin('1M8GDM9AXKP042788'); // textbook example, check X (49 CFR 565.15(c) method)
+    expect(r.warnings).toEqual([]);
+    expect(followsNorthAmericanRules(r)).toBe(true);
+  });
+
+  it('refuses only what no VIN can be: length and I, O, Q', () => {
+    expect(checkVin('1G4AH59H55G11834').valid).toBe(false); // 16 characters
+    expect(checkVin('1G4AH59H55G11834Q').valid).toBe(false); // Q (ISO 3779 and 49 CFR 565.13)
+    expect(checkVin('Y9XRM4C81P0001930').valid).toBe(true); // invented VIN of a non-North-American maker, no check digit
   });
 
   it('reports the length', () => {
@@ -116,12 +134,14 @@ describe('checkVin', () => {
     expect(r.errors).toEqual(['Position 6 is "-": a VIN has only letters and digits.']);
   });
 
-  it.each(['U', 'Z', '0'])('rejects %s as a model year character', (ch) => {
-    // references.md §3: never U, Z or 0 in position 10
+  it.each(['U', 'Z', '0'])('warns about %s as a model year character and reads no year', (ch) => {
+    // 49 CFR 565.15(d): never U, Z or 0 in position 10; outside North America position 10 need not be a year.
     const vin = withCheckDigit(`1G4AH59H4${ch}G118341`);
     const r = checkVin(vin);
-    expect(r.valid).toBe(false);
-    expect(r.errors).toEqual([`Position 10 is "${ch}", which is never used for a model year (U, Z and 0 are not model-year codes).`]);
+    expect(r.valid).toBe(true);
+    expect(r.warnings).toEqual([
+      `Position 10 is "${ch}", which is not a North American model-year code: the year is not read from it (only required for North American vehicles).`,
+    ]);
     expect(r.modelYears).toEqual([]);
   });
 
@@ -190,9 +210,13 @@ describe('vinSchema', () => {
   });
 
   it('fails with the first error as its message', () => {
-    const r = vinSchema.safeParse('1G4AH59H55G118341');
+    const r = vinSchema.safeParse('1G4AH59H55G11834');
     expect(r.success).toBe(false);
-    expect(r.error?.issues[0]?.message).toBe('The check digit is 5 but the VIN computes 4.');
+    expect(r.error?.issues[0]?.message).toBe('A VIN has 17 characters; this one has 16.');
+  });
+
+  it('passes a VIN whose check digit does not match (a warning, never a refusal)', () => {
+    expect(vinSchema.safeParse('1G4AH59H55G118341').success).toBe(true);
   });
 
   it('rejects non-strings', () => {
@@ -226,12 +250,12 @@ describe('VIN properties', () => {
         fc.pre(ch !== old);
         const corrupted = vin.slice(0, pos) + ch + vin.slice(pos + 1);
         const r = checkVin(corrupted);
-        if (r.valid) {
+        if (followsNorthAmericanRules(r)) {
           // Only a same-value swap (e.g. A/J/1, B/K/S/2) outside position 9 slips through mod 11.
           expect(pos).not.toBe(8);
           expect(vinCharValue(ch)).toBe(vinCharValue(old));
         } else {
-          expect(r.errors.length).toBeGreaterThan(0);
+          expect(r.errors.length + r.warnings.length).toBeGreaterThan(0);
         }
       }),
       { numRuns: 500 },
@@ -242,7 +266,7 @@ describe('VIN properties', () => {
     fc.assert(
       fc.property(validVin, fc.constantFrom(...'0123456789X'.split('')), (vin, d) => {
         fc.pre(d !== vin.charAt(8));
-        expect(checkVin(vin.slice(0, 8) + d + vin.slice(9)).errors[0]).toMatch(/check digit is/);
+        expect(checkVin(vin.slice(0, 8) + d + vin.slice(9)).warnings[0]).toMatch(/Check digit does not match/);
       }),
     );
   });
