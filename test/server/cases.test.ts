@@ -70,8 +70,8 @@ describe('creating cases', () => {
     const res = await post(as.technician!, '/api/cases', { ...draft, platformId, vehicle: { vin: '1M8GDM9A1KP042788' } });
     expect(res.status).toBe(201);
     const saved = await as.technician!.agent.get(`/api/cases/${res.body.id}`).expect(200);
-    expect(saved.body.vehicle.vin).toBe('1M8GDM9A1KP042788');
-    expect(saved.body.vehicle.vinWarnings[0]).toMatch(/check digit does not match.*only required for North American vehicles/i);
+    expect(saved.body.case.vehicle.vin).toBe('1M8GDM9A1KP042788');
+    expect(saved.body.case.vehicle.vinWarnings[0]).toMatch(/check digit does not match.*only required for North American vehicles/i);
   });
 
   it('refuses only what no VIN can be (17 characters, no I, O or Q: ISO 3779)', async () => {
