@@ -4,7 +4,9 @@ import { randomUUID } from 'node:crypto';
 import { existsSync } from 'node:fs';
 import http from 'node:http';
 import path from 'node:path';
+import compression from 'compression';
 import express, { type Express } from 'express';
+import expressStaticGzip from 'express-static-gzip';
 import helmet from 'helmet';
 import { pinoHttp } from 'pino-http';
 import type { Pool } from 'mysql2/promise';
@@ -95,6 +97,8 @@ export function createApp({ ctx, pool, sessionSecret }: AppOptions): CausewayApp
     }),
   );
   app.use(helmet({ contentSecurityPolicy: ctx.config.webDevServer ? devContentSecurityPolicy : contentSecurityPolicy, crossOriginEmbedderPolicy: false }));
+  // API answers are compressed on the fly; the web app's files were compressed at build time.
+  app.use('/api', compression());
   app.use('/api', express.json({ limit: ctx.config.limits.jsonBody, strict: true }));
   const sessionStore = installSessions(app, ctx, pool, sessionSecret);
   app.use('/api', (req, res, next) => {
@@ -115,15 +119,22 @@ export function createApp({ ctx, pool, sessionSecret }: AppOptions): CausewayApp
   });
 }
 
-/** The exported Expo web app (output "single") with a fallback to index.html for deep links. */
+/**
+ * The exported Expo web app (output "single") with a fallback to index.html for deep links.
+ * Files come precompressed (brotli, gzip: see server/cli/web-build.ts), chosen by Accept-Encoding.
+ */
 function serveWebApp(app: Express, dist: string) {
   const index = path.join(dist, 'index.html');
   app.use(
-    express.static(dist, {
+    expressStaticGzip(dist, {
       index: false,
-      setHeaders: (res, file) => {
-        if (file.includes(`${path.sep}_expo${path.sep}`) || file.includes(`${path.sep}assets${path.sep}`))
-          res.setHeader('Cache-Control', 'public, max-age=31536000, immutable');
+      enableBrotli: true,
+      orderPreference: ['br', 'gzip'],
+      serveStatic: {
+        index: false,
+        setHeaders: (res, file) => {
+          if (isHashedAsset(file)) res.setHeader('Cache-Control', 'public, max-age=31536000, immutable');
+        },
       },
     }),
   );
@@ -135,6 +146,11 @@ function serveWebApp(app: Express, dist: string) {
     res.setHeader('Cache-Control', 'no-cache');
     res.sendFile(index);
   });
+}
+
+/** Build output whose names carry a content hash: safe to cache for a year. */
+function isHashedAsset(file: string): boolean {
+  return file.includes(`${path.sep}_expo${path.sep}`) || file.includes(`${path.sep}assets${path.sep}`);
 }
 
 /** Development only: everything that is not /api goes to Expo's dev server (plain node:http). */

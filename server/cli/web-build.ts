@@ -2,6 +2,7 @@
 import { createHash } from 'node:crypto';
 import { spawn, spawnSync } from 'node:child_process';
 import { existsSync, readdirSync, readFileSync, statSync, writeFileSync } from 'node:fs';
+import { brotliCompressSync, constants as zlib, gzipSync } from 'node:zlib';
 import path from 'node:path';
 
 const EXPO_ENV = { EXPO_NO_TELEMETRY: '1', EXPO_OFFLINE: '1', CI: '1' };
@@ -33,8 +34,31 @@ export function buildWebIfChanged(root: string, options: { force?: boolean } = {
     env: { ...process.env, ...EXPO_ENV, NODE_ENV: 'production' },
   });
   if (result.status !== 0) throw new Error(`expo export failed (exit ${result.status})`);
+  precompress(dist);
   writeFileSync(stamp, current);
   return { built: true, seconds: (Date.now() - started) / 1000 };
+}
+
+const COMPRESSIBLE = /\.(js|css|html|json|svg|ttf|otf|map|txt)$/;
+const MIN_BYTES = 1024;
+
+/**
+ * Writes name.br and name.gz beside every compressible file of the build, once, at full
+ * strength, so the server never compresses the 2 MB bundle per request.
+ */
+export function precompress(dir: string): void {
+  for (const entry of readdirSync(dir, { withFileTypes: true })) {
+    const file = path.join(dir, entry.name);
+    if (entry.isDirectory()) {
+      precompress(file);
+      continue;
+    }
+    if (!COMPRESSIBLE.test(entry.name)) continue;
+    const data = readFileSync(file);
+    if (data.length < MIN_BYTES) continue;
+    writeFileSync(`${file}.br`, brotliCompressSync(data, { params: { [zlib.BROTLI_PARAM_QUALITY]: 11, [zlib.BROTLI_PARAM_SIZE_HINT]: data.length } }));
+    writeFileSync(`${file}.gz`, gzipSync(data, { level: 9 }));
+  }
 }
 
 /** npm run dev: Expo's dev server with hot reload; the API server proxies pages to it. */
