@@ -16,12 +16,14 @@ const FONT_FILES = { SourceSerif4_400Regular, SourceSerif4_400Regular_Italic, So
 
 export function RootProviders({ children }: { children: ReactNode }) {
   const t = useTheme();
-  const [loaded, failed] = useFonts(FONT_FILES);
+  // Screens render at once in the fallback face and swap when the fonts arrive: on a phone
+  // network, waiting for 330 KB of fonts would hold back the first screen by seconds.
+  useFonts(FONT_FILES);
   return (
     <SafeAreaProvider>
       <SWRConfig value={{ shouldRetryOnError: (err) => !(err instanceof ApiError && err.status < 500 && err.status > 0), errorRetryCount: 3 }}>
         <StatusBar style={t.scheme === 'dark' ? 'light' : 'dark'} />
-        <View style={{ flex: 1, backgroundColor: t.colour.paper }}>{loaded || failed ? children : null}</View>
+        <View style={{ flex: 1, backgroundColor: t.colour.paper }}>{children}</View>
       </SWRConfig>
     </SafeAreaProvider>
   );

@@ -40,10 +40,10 @@ export function buildWebIfChanged(root: string, options: { force?: boolean } = {
 }
 
 const COMPRESSIBLE = /\.(js|css|html|json|svg|ttf|otf|map|txt)$/;
-const MIN_BYTES = 1024;
 
 /**
- * Writes name.br and name.gz beside every compressible file of the build, once, at full
+ * Writes name.br and name.gz beside every compressible file of the build (tiny ones too, so every
+ * script answers the same way), once, at full
  * strength, so the server never compresses the 2 MB bundle per request.
  */
 export function precompress(dir: string): void {
@@ -55,7 +55,6 @@ export function precompress(dir: string): void {
     }
     if (!COMPRESSIBLE.test(entry.name)) continue;
     const data = readFileSync(file);
-    if (data.length < MIN_BYTES) continue;
     writeFileSync(`${file}.br`, brotliCompressSync(data, { params: { [zlib.BROTLI_PARAM_QUALITY]: 11, [zlib.BROTLI_PARAM_SIZE_HINT]: data.length } }));
     writeFileSync(`${file}.gz`, gzipSync(data, { level: 9 }));
   }
