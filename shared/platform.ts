@@ -30,7 +30,11 @@ const year = (what: string) =>
     .min(PLATFORM_YEAR_MIN, `${what} must be ${PLATFORM_YEAR_MIN} or later`)
     .max(PLATFORM_YEAR_MAX, `${what} must be ${PLATFORM_YEAR_MAX} or earlier`);
 
-const cylinderList = z.array(z.number().int('cylinder numbers are whole numbers').min(1, 'cylinder numbers start at 1'));
+// An engine has at most MAX_CYLINDERS cylinders, so no list of them is longer (issue 15: a firing
+// order of 145,000 entries held the server for seconds).
+const cylinderList = z
+  .array(z.number().int('cylinder numbers are whole numbers').min(1, 'cylinder numbers start at 1'))
+  .max(MAX_CYLINDERS, `An engine has at most ${MAX_CYLINDERS} cylinders: list each once`);
 
 /**
  * The fields alone, without the cross-field rules. zod refuses .partial() and
@@ -57,12 +61,17 @@ export const platformFieldsSchema = z.object({
 
 type BaseInput = z.infer<typeof platformFieldsSchema>;
 
-function duplicates(list: readonly number[]): number[] {
-  return [...new Set(list.filter((n, i) => list.indexOf(n) !== i))];
+/** Entries listed more than once, each named once; one pass with a Set, so linear in the list. */
+export function duplicates<T>(list: readonly T[]): T[] {
+  const seen = new Set<T>();
+  const repeated = new Set<T>();
+  for (const item of list) (seen.has(item) ? repeated : seen).add(item);
+  return [...repeated];
 }
 
 function missing(list: readonly number[], n: number): number[] {
-  return Array.from({ length: n }, (_, i) => i + 1).filter((c) => !list.includes(c));
+  const present = new Set(list);
+  return Array.from({ length: n }, (_, i) => i + 1).filter((c) => !present.has(c));
 }
 
 function outOfRange(list: readonly number[], n: number): number[] {

@@ -3,7 +3,9 @@
 import { useMemo, type ReactNode } from 'react';
 import { Image, Linking, View } from 'react-native';
 import Markdown, { renderRules as packageRules, type ASTNode, type RenderRules } from 'react-native-markdown-display';
+import { boundNoteNesting, nestingNotice } from '../../shared/markdown/nesting';
 import { useTheme, type Theme } from '../theme/use-theme';
+import { Notice } from '../ui/notice';
 import { Text } from '../ui/text';
 import { isCautionQuote, type NoteNode } from './caution';
 import { createNoteParser } from './note-parser';
@@ -117,11 +119,15 @@ export function MarkdownView({ body, attachments = [] }: { body: string; attachm
   const ids = useMemo(() => new Set(attachments.map((a) => a.id)), [attachments]);
   const style = useMemo(() => noteStyles(t), [t.scheme]); // eslint-disable-line react-hooks/exhaustive-deps
   const renderRules = useMemo(() => rules(t, ids), [t.scheme, ids]); // eslint-disable-line react-hooks/exhaustive-deps
+  // The same nesting bound as the server's reading of the note: deep nesting would freeze the page.
+  const bounded = useMemo(() => boundNoteNesting(body), [body]);
+  const notice = nestingNotice(bounded);
   if (!body.trim()) return <Text tone="slate">Nothing written yet.</Text>;
   return (
-    <View style={{ maxWidth: t.layout.readingWidth }}>
+    <View style={{ maxWidth: t.layout.readingWidth, gap: notice ? t.space.md : 0 }}>
+      {notice ? <Notice tone="info">{notice}</Notice> : null}
       <Markdown markdownit={parser} style={style} rules={renderRules}>
-        {body}
+        {bounded.text}
       </Markdown>
     </View>
   );

@@ -1,6 +1,7 @@
 // The markdown-it instance for case notes: no raw HTML, strict links, GFM task lists.
 // (markdown-it has GFM tables and strikethrough built in; task lists are added here.)
 import MarkdownIt, { type StateCore, type Token } from 'markdown-it';
+import { NOTE_MAX_NESTING } from '../../shared/markdown/nesting';
 import { acceptableUrl } from './safety';
 
 const TASK = /^\[([ xX])\][ \u00a0]/;
@@ -24,7 +25,8 @@ export function taskListRule(state: StateCore): void {
 
 export function createNoteParser() {
   // html: false is markdown-it's default; set it anyway so raw HTML stays text whatever the default becomes.
-  const md = MarkdownIt({ html: false, linkify: false, typographer: true });
+  // maxNesting backs up boundNoteNesting (shared/markdown/nesting.ts): a list level costs two levels.
+  const md = MarkdownIt({ html: false, linkify: false, typographer: true, maxNesting: 2 * NOTE_MAX_NESTING + 10 });
   md.validateLink = acceptableUrl;
   md.core.ruler.push('task_lists', taskListRule);
   return md;

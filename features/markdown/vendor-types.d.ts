@@ -20,6 +20,7 @@ declare module 'markdown-it' {
     linkify?: boolean;
     typographer?: boolean;
     breaks?: boolean;
+    maxNesting?: number;
   }
   export interface MarkdownIt {
     parse(src: string, env: object): Token[];

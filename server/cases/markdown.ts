@@ -1,41 +1,50 @@
-// Reads a case note with remark + GFM: the trouble codes it mentions, readings with units
-// and its headings. The note itself is stored as written; rendering is the client's job.
-import { remark } from 'remark';
-import remarkGfm from 'remark-gfm';
-import type { Root, RootContent } from 'mdast';
+// Reads a case note: the trouble codes it mentions, readings with units and its headings. The note
+// itself is stored as written; rendering is the client's job. The note is first bounded in nesting
+// (shared/markdown/nesting.ts) and then read with markdown-it, whose block and inline passes are
+// linear in the note's length, so no note can hold the request thread for long (issue 15: remark
+// took seconds on nested lists and overflowed the stack on 4,000 '>').
+import MarkdownIt from 'markdown-it';
+import type { Token } from 'markdown-it';
 import { findDtcsInText } from '../../shared/codes';
+import { boundNoteNesting, nestingNotice, NOTE_MAX_NESTING } from '../../shared/markdown/nesting';
 import type { NoteExtract } from '../../shared/schemas/cases';
 import { findMeasurements } from '../../shared/units';
 
-const parser = remark().use(remarkGfm);
+// html: true only so raw HTML arrives as html tokens and is left out of the text, as before.
+// maxNesting is a second bound behind boundNoteNesting: a list level costs markdown-it two levels.
+const parser = MarkdownIt({ html: true, linkify: false, typographer: false, maxNesting: 2 * NOTE_MAX_NESTING + 10 });
 
-type Node = Root | RootContent;
-
-function textOf(node: Node): string {
-  if ('value' in node && typeof node.value === 'string' && node.type !== 'html') return node.value;
-  if ('children' in node) return node.children.map(textOf).join(node.type === 'paragraph' || node.type === 'heading' ? '' : ' ');
-  return '';
+/** Text of one inline run: words, code spans and link texts; images and raw HTML are left out. */
+function inlineText(token: Token): string {
+  let text = '';
+  let inImage = 0;
+  for (const child of token.children ?? []) {
+    if (child.type === 'image') inImage++;
+    else if (child.type === 'text' || child.type === 'code_inline') text += inImage ? '' : child.content;
+    else if (child.type === 'softbreak' || child.type === 'hardbreak') text += '\n';
+  }
+  return text;
 }
 
 /** Text runs of the note, one per block, so a reading never spans two table cells. */
-function blocks(node: Node, out: string[]) {
-  if (node.type === 'paragraph' || node.type === 'heading' || node.type === 'tableCell' || node.type === 'code' || node.type === 'inlineCode') {
-    out.push(textOf(node));
-    return;
+function readBlocks(tokens: Token[]) {
+  const runs: string[] = [];
+  const headings: NoteExtract['headings'] = [];
+  for (let i = 0; i < tokens.length; i++) {
+    const token = tokens[i]!;
+    if (token.type === 'code_block' || token.type === 'fence') runs.push(token.content);
+    else if (token.type === 'inline') runs.push(inlineText(token));
+    if (token.type === 'heading_open') {
+      const inline = tokens[i + 1];
+      headings.push({ depth: Number(token.tag.slice(1)), text: inline ? inlineText(inline).trim() : '' });
+    }
   }
-  if ('children' in node) for (const child of node.children) blocks(child, out);
+  return { runs, headings };
 }
 
 export function extractFromNote(body: string, caseCodes: string[] = []): NoteExtract {
-  const tree = parser.parse(body);
-  const runs: string[] = [];
-  blocks(tree, runs);
-  const headings: NoteExtract['headings'] = [];
-  const visit = (node: Node) => {
-    if (node.type === 'heading') headings.push({ depth: node.depth, text: textOf(node).trim() });
-    else if ('children' in node) node.children.forEach(visit);
-  };
-  visit(tree);
+  const bounded = boundNoteNesting(body);
+  const { runs, headings } = readBlocks(parser.parse(bounded.text, {}));
   const codes = [...new Set(runs.flatMap((r) => findDtcsInText(r).map((d) => d.full)))];
   const known = new Set(caseCodes.flatMap((c) => [c, c.slice(0, 5)]));
   return {
@@ -43,5 +52,6 @@ export function extractFromNote(body: string, caseCodes: string[] = []): NoteExt
     suggestedCodes: codes.filter((c) => !known.has(c) && !known.has(c.slice(0, 5))),
     measurements: runs.flatMap((r) => findMeasurements(r)).map((m) => ({ value: m.value, unit: m.unit, raw: m.raw })),
     headings,
+    markdownNotice: nestingNotice(bounded),
   };
 }

@@ -128,6 +128,7 @@ export async function getCaseDetail(ctx: AppContext, actor: Actor, id: number): 
   const base = toSummary(summary as SummaryRow);
   const facts = extra[0];
   const editable = canEditCase(actor, row);
+  const extracted = extractFromNote(row.body, row.codes);
   return {
     ...base,
     body: row.body,
@@ -142,7 +143,8 @@ export async function getCaseDetail(ctx: AppContext, actor: Actor, id: number): 
     createdAt: row.createdAt.toISOString(),
     attachments: files.map((f) => ({ id: f.id, name: f.originalName, size: f.size, mime: f.mime, url: attachmentUrl(f.id), createdAt: f.createdAt.toISOString() })),
     comments: comments.map((c) => ({ id: c.id, kind: c.kind, body: c.body, author: { id: c.authorId, name: c.authorName }, createdAt: c.createdAt.toISOString() })),
-    extracted: extractFromNote(row.body, row.codes),
+    extracted,
+    markdownNotice: extracted.markdownNotice,
     repeats,
     permissions: {
       edit: editable,

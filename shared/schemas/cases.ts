@@ -155,6 +155,8 @@ export const noteExtractSchema = z.object({
   suggestedCodes: z.array(z.string()),
   measurements: z.array(measurementSchema),
   headings: z.array(z.object({ depth: z.number(), text: z.string() })),
+  /** Set when the note nests deeper than shared/markdown/nesting.ts keeps: what was cut. */
+  markdownNotice: z.string().nullable(),
 });
 export type NoteExtract = z.infer<typeof noteExtractSchema>;
 
@@ -181,6 +183,8 @@ export const caseDetailSchema = caseSummarySchema.extend({
   attachments: z.array(attachmentSchema),
   comments: z.array(caseCommentSchema),
   extracted: noteExtractSchema,
+  /** The same as extracted.markdownNotice, at the top so every reader of a case sees it. */
+  markdownNotice: z.string().nullable(),
   repeats: z.array(repeatVisitSchema),
   permissions: z.object({ edit: z.boolean(), submit: z.boolean(), publish: z.boolean(), return: z.boolean(), confirm: z.boolean(), delete: z.boolean() }),
 });

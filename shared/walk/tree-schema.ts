@@ -25,19 +25,29 @@ export const codePatternSchema = z
   .regex(/^[PCBU](?:[0-9A-F?]{4}|[0-9A-F?]{0,3}\*)$/i, 'a code pattern is a full code (P0171) or a family ending in * (P030*)')
   .transform((p) => p.toUpperCase());
 
-const list = <T extends z.ZodType>(item: T) => z.array(item).min(1);
+// Every list in a tree has a cap well above what the shipped trees use (at most 19 codes, 11 tags,
+// 5 causes a branch, 4 branches, 4 tools, 4 modifiers), so a saved tree cannot hold the server
+// (issue 15, finding 7). Common practice, no source.
+export const TREE_LIST_LIMITS = { codes: 60, tags: 40, branches: 20, causes: 30, tools: 12, modifiers: 12 } as const;
+
+const capped = <T extends z.ZodType>(item: T, max: number, what: string) => z.array(item).max(max, `at most ${max} ${what}`);
+const list = <T extends z.ZodType>(item: T, max: number, what: string) => capped(item, max, what).min(1);
+const codeList = (min: 0 | 1) => (min ? list : capped)(codePatternSchema, TREE_LIST_LIMITS.codes, 'code patterns');
+const tagList = (min: 0 | 1) => (min ? list : capped)(tag, TREE_LIST_LIMITS.tags, 'tags');
+/** A list of enum values, each at most once, so never longer than the enum. */
+const enumList = <const V extends readonly [string, ...string[]]>(values: V) => list(z.enum(values), values.length, 'values');
 
 export const conditionSchema = z
   .strictObject({
-    codes: list(codePatternSchema).optional(),
-    allCodes: list(codePatternSchema).optional(),
-    symptoms: list(tag).optional(),
-    context: list(tag).optional(),
-    tags: list(tag).optional(),
+    codes: codeList(1).optional(),
+    allCodes: codeList(1).optional(),
+    symptoms: tagList(1).optional(),
+    context: tagList(1).optional(),
+    tags: tagList(1).optional(),
     misfire: z.enum(MISFIRE_PATTERNS).optional(),
-    fuel: list(z.enum(FUELS)).optional(),
-    induction: list(z.enum(INDUCTIONS)).optional(),
-    layout: list(z.enum(LAYOUTS)).optional(),
+    fuel: enumList(FUELS).optional(),
+    induction: enumList(INDUCTIONS).optional(),
+    layout: enumList(LAYOUTS).optional(),
   })
   .refine((c) => Object.keys(c).length > 0, 'a condition needs at least one key');
 export type Condition = z.output<typeof conditionSchema>;
@@ -55,7 +65,7 @@ export type TreeSpec = z.output<typeof specSchema>;
 
 export const testStepSchema = z.strictObject({
   do: text,
-  tools: z.array(text).default([]),
+  tools: capped(text, TREE_LIST_LIMITS.tools, 'tools').default([]),
   expect: text,
   spec: specSchema.optional(),
 });
@@ -82,24 +92,24 @@ export const causeSchema = z.strictObject({
   test: testStepSchema,
   caution: text.optional(),
   appliesWhen: conditionSchema.optional(),
-  modifiers: z.array(modifierSchema).default([]),
+  modifiers: capped(modifierSchema, TREE_LIST_LIMITS.modifiers, 'modifiers').default([]),
 });
 export type Cause = z.output<typeof causeSchema>;
 
 export const branchSchema = z.strictObject({
   system: z.enum(SYSTEMS),
   title: text.optional(),
-  causes: list(causeSchema),
+  causes: list(causeSchema, TREE_LIST_LIMITS.causes, 'causes in a branch'),
 });
 
 export const appliesToSchema = z
   .strictObject({
-    codes: z.array(codePatternSchema).default([]),
-    symptoms: z.array(tag).default([]),
-    context: z.array(tag).default([]),
-    fuel: list(z.enum(FUELS)).optional(),
-    induction: list(z.enum(INDUCTIONS)).optional(),
-    layout: list(z.enum(LAYOUTS)).optional(),
+    codes: codeList(0).default([]),
+    symptoms: tagList(0).default([]),
+    context: tagList(0).default([]),
+    fuel: enumList(FUELS).optional(),
+    induction: enumList(INDUCTIONS).optional(),
+    layout: enumList(LAYOUTS).optional(),
   })
   .refine(
     (a) => a.codes.length + a.symptoms.length + a.context.length > 0,
@@ -112,7 +122,7 @@ export const treeSchema = z
     title: text,
     description: text,
     appliesTo: appliesToSchema,
-    branches: list(branchSchema),
+    branches: list(branchSchema, TREE_LIST_LIMITS.branches, 'branches'),
   })
   .superRefine((tree, ctx) => {
     const seen = new Set<string>();
