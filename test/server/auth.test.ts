@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { eq } from 'drizzle-orm';
+import { and, eq } from 'drizzle-orm';
 import { users } from '../../db/schema';
 import { GENERIC_LOGIN_FAILURE, lockDurationMs } from '../../server/auth/service';
 import { SESSION_COOKIE } from '../../server/auth/session';
@@ -148,6 +148,23 @@ describe('role guards and shop isolation on users', () => {
     const { agent, csrf } = await signedIn(t.app, solo.people.manager.email);
     const res = await agent.patch(`/api/users/${solo.people.manager.id}`).set('X-CSRF-Token', csrf).send({ role: 'technician' });
     expect(res.status).toBe(409);
+  });
+
+  it('keeps a manager when two managers demote themselves at the same moment (outside test, finding 2)', async () => {
+    for (let round = 0; round < 15; round++) {
+      const pair = await seedShop(t.ctx, `Twin Managers ${round}`, ['manager', 'senior']);
+      // a second manager in the same shop, promoted from the senior seat
+      await t.ctx.db.update(users).set({ role: 'manager' }).where(eq(users.id, pair.people.senior.id));
+      const a = await signedIn(t.app, pair.people.manager.email);
+      const b = await signedIn(t.app, pair.people.senior.email);
+      const answers = await Promise.all([
+        a.agent.patch(`/api/users/${pair.people.manager.id}`).set('X-CSRF-Token', a.csrf).send({ role: 'technician' }),
+        b.agent.patch(`/api/users/${pair.people.senior.id}`).set('X-CSRF-Token', b.csrf).send({ role: 'technician' }),
+      ]);
+      expect(answers.map((r) => r.status).sort()).toEqual([200, 409]);
+      const managers = await t.ctx.db.select().from(users).where(and(eq(users.shopId, pair.shopId), eq(users.role, 'manager')));
+      expect(managers).toHaveLength(1);
+    }
   });
 
   it('validates the user patch and the id', async () => {
