@@ -1,4 +1,4 @@
-import { and, asc, eq, sql } from 'drizzle-orm';
+import { and, asc, eq, isNotNull, sql } from 'drizzle-orm';
 import { transaction, type Db } from '../../db/client';
 import type { z } from 'zod';
 import { users } from '../../db/schema';
@@ -58,14 +58,15 @@ export async function inviteUser(ctx: AppContext, manager: SessionUser, input: z
 }
 
 /**
- * Locks the shop's active managers: not disabled. The locking read makes two managers who demote themselves at once queue up,
+ * Locks the shop's active managers: not disabled and holding a password (signed up or accepted
+ * their invite). The locking read makes two managers who demote themselves at once queue up,
  * so the second sees the first one's change.
  */
 async function lockActiveManagerIds(tx: Db, shopId: number): Promise<number[]> {
   const rows = await tx
     .select({ id: users.id })
     .from(users)
-    .where(and(eq(users.shopId, shopId), eq(users.role, 'manager'), eq(users.disabled, false)))
+    .where(and(eq(users.shopId, shopId), eq(users.role, 'manager'), eq(users.disabled, false), isNotNull(users.passwordHash)))
     .for('update');
   return rows.map((r) => r.id);
 }

@@ -167,6 +167,15 @@ describe('role guards and shop isolation on users', () => {
     }
   });
 
+  it('does not count an invited manager who never set a password as the remaining manager (outside test, finding 3)', async () => {
+    const solo = await seedShop(t.ctx, 'Invite Then Leave Bay', ['manager']);
+    const { agent, csrf } = await signedIn(t.app, solo.people.manager.email);
+    await agent.post('/api/users').set('X-CSRF-Token', csrf).send({ name: 'Nobody Home', email: `nobody.${Date.now()}@unowned.test`, role: 'manager' }).expect(201);
+    const res = await agent.patch(`/api/users/${solo.people.manager.id}`).set('X-CSRF-Token', csrf).send({ role: 'technician' });
+    expect(res.status).toBe(409);
+    expect(res.body.error.code).toBe('last_manager');
+  });
+
   it('validates the user patch and the id', async () => {
     const { agent, csrf } = await signedIn(t.app, shop.people.manager.email);
     expect((await agent.patch('/api/users/abc').set('X-CSRF-Token', csrf).send({ role: 'senior' })).status).toBe(400);
