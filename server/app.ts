@@ -15,6 +15,7 @@ import { caseRoutes } from './cases/routes';
 import { csrfProtection, installSessions } from './auth/session';
 import type { AppContext } from './context';
 import { errorHandler, notFoundHandler } from './http/errors';
+import { safeLogger } from './http/safe-log';
 import { healthRoutes } from './health/routes';
 import { outboxRoutes } from './mail/outbox';
 import { patternRoutes } from './patterns/routes';
@@ -83,11 +84,12 @@ export type CausewayApp = Express & { shutdown(): Promise<void> };
 
 export function createApp({ ctx, pool, sessionSecret }: AppOptions): CausewayApp {
   const app = express();
+  const log = safeLogger(ctx.log);
   app.disable('x-powered-by');
   app.set('trust proxy', 'loopback');
   app.use(
     pinoHttp({
-      logger: ctx.log,
+      logger: log,
       genReqId: (req, res) => {
         const id = randomUUID();
         res.setHeader('X-Request-Id', id);
@@ -110,7 +112,7 @@ export function createApp({ ctx, pool, sessionSecret }: AppOptions): CausewayApp
   app.use('/api', notFoundHandler);
   if (ctx.config.webDevServer) proxyToDevServer(app, ctx.config.webDevServer);
   else serveWebApp(app, ctx.config.webDist);
-  app.use(errorHandler(ctx.log));
+  app.use(errorHandler(log));
   return Object.assign(app, {
     shutdown: async () => {
       await stopSearch(ctx);

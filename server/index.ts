@@ -4,6 +4,7 @@ import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import type { Server } from 'node:http';
 import path from 'node:path';
 import pino from 'pino';
+import { safeLogger } from './http/safe-log';
 import { applyMigrations, connect } from '../db/client';
 import { createApp } from './app';
 import type { Config } from './config';
@@ -30,7 +31,8 @@ export interface RunningServer {
 }
 
 export async function startServer(config: Config): Promise<RunningServer> {
-  const log = pino({ level: config.logLevel, base: { app: 'causeway' } });
+  // scheduler and mail failures log errors too: the same redaction as requests
+  const log = safeLogger(pino({ level: config.logLevel, base: { app: 'causeway' } }));
   const database = connect(config.db);
   await applyMigrations(database.db);
   const ctx: AppContext = { db: database.db, config, mailer: createMailer(config), log };

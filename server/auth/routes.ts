@@ -40,10 +40,10 @@ export function authRoutes(ctx: AppContext) {
     res.json({ token: csrfToken(req) });
   });
 
-  r.post('/auth/signup', can('auth.public'), perAddress, validate('body', signupSchema), async (req, res) => {
-    const user = await signUp(ctx, valid(req, 'body', signupSchema));
-    await signIn(req, user);
-    res.status(201).json({ user });
+  r.post('/auth/signup', can('auth.public'), perAddress, validate('body', signupSchema), (req, res) => {
+    // Answer at once and the same way whether or not the address is taken: the mail says which.
+    signUp(ctx, valid(req, 'body', signupSchema)).catch((err) => ctx.log.error({ err }, 'sign-up failed'));
+    res.status(202).json({ ok: true, message: 'Check the inbox of that address: the link we sent sets your password and opens your shop.' });
   });
 
   r.post('/auth/login', can('auth.public'), perAddress, validate('body', loginSchema), async (req, res) => {

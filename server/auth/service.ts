@@ -4,13 +4,16 @@ import type { Db } from '../../db/client';
 import { sessions, shops, users } from '../../db/schema';
 import type { loginSchema, signupSchema } from '../../shared/schemas/auth';
 import type { AppContext } from '../context';
-import { conflict, HttpError } from '../http/errors';
-import { resetMail } from '../mail/templates';
+import { HttpError } from '../http/errors';
+import { accountExistsMail, confirmSignupMail, resetMail } from '../mail/templates';
 import { dummyVerify, hashPassword, verifyPassword } from './passwords';
 import type { SessionUser } from './session-user';
 import { consumeToken, issueToken } from './tokens';
 
-export const GENERIC_LOGIN_FAILURE = 'That e-mail and password do not match an active account.';
+// One answer for a wrong password, an unknown e-mail, a disabled account and a paused one, so
+// sign-in tells nobody which addresses have accounts.
+export const GENERIC_LOGIN_FAILURE =
+  'That e-mail and password do not match an active account. After several failed tries sign-in pauses for a while; reset the password if you are stuck.';
 
 // Account back-off: free attempts, then a lock that doubles per failure up to an hour.
 // That keeps failures far below ASVS 2.2.1's 100 per hour per account.
@@ -46,22 +49,35 @@ export const toSessionUser = ({ id, name, email, role, shopId, shopName }: Sessi
   shopName,
 });
 
-export async function signUp(ctx: AppContext, input: z.infer<typeof signupSchema>): Promise<SessionUser> {
-  const passwordHash = await hashPassword(input.password);
+/**
+ * Starts a sign-up. Answered the same whether or not the address has an account (no probing):
+ * a new address gets a shop whose manager has no password yet and a link that sets it (the
+ * invite flow), proving the address; a taken one gets a mail telling its owner, with a reset link.
+ */
+export async function signUp(ctx: AppContext, input: z.infer<typeof signupSchema>): Promise<void> {
+  const [existing] = await ctx.db.select({ id: users.id }).from(users).where(eq(users.email, input.email));
+  if (existing) return mailAccountExists(ctx, input.email);
+  let userId: number;
   try {
-    const userId = await ctx.db.transaction(async (tx) => {
+    userId = await ctx.db.transaction(async (tx) => {
       const [shop] = await tx.insert(shops).values({ name: input.shopName }).$returningId();
-      const [user] = await tx
-        .insert(users)
-        .values({ shopId: shop!.id, name: input.name, email: input.email, role: 'manager', passwordHash, passwordChangedAt: new Date() })
-        .$returningId();
+      const [user] = await tx.insert(users).values({ shopId: shop!.id, name: input.name, email: input.email, role: 'manager' }).$returningId();
       return user!.id;
     });
-    return toSessionUser((await loadSessionUser(ctx.db, userId))!);
   } catch (err) {
-    if (isDuplicate(err)) throw conflict('An account with that e-mail already exists. Sign in or reset the password.');
+    // two sign-ups with one address at once: the loser is told like any taken address
+    if (isDuplicate(err)) return mailAccountExists(ctx, input.email);
     throw err;
   }
+  const token = await issueToken(ctx.db, userId, 'invite');
+  await ctx.mailer.send(confirmSignupMail(input.email, input.name, input.shopName, `${ctx.config.publicUrl}/set-password?token=${token}&kind=invite`));
+}
+
+async function mailAccountExists(ctx: AppContext, email: string) {
+  const [user] = await ctx.db.select({ id: users.id, name: users.name, disabled: users.disabled }).from(users).where(eq(users.email, email));
+  if (!user) return;
+  const resetUrl = user.disabled ? null : `${ctx.config.publicUrl}/set-password?token=${await issueToken(ctx.db, user.id, 'reset')}&kind=reset`;
+  await ctx.mailer.send(accountExistsMail(email, user.name, resetUrl));
 }
 
 export function isDuplicate(err: unknown): boolean {
@@ -69,7 +85,7 @@ export function isDuplicate(err: unknown): boolean {
   return cause?.code === 'ER_DUP_ENTRY';
 }
 
-/** Checks a sign-in; throws 401 with one generic message, or 429 while the account is backed off. */
+/** Checks a sign-in; throws 401 with one generic message, also while the account is backed off. */
 export async function authenticate(db: Db, input: z.infer<typeof loginSchema>): Promise<SessionUser> {
   const [user] = await db.select().from(users).where(eq(users.email, input.email));
   if (!user || !user.passwordHash) {
@@ -77,8 +93,9 @@ export async function authenticate(db: Db, input: z.infer<typeof loginSchema>): 
     throw new HttpError(401, 'bad_credentials', GENERIC_LOGIN_FAILURE);
   }
   if (user.lockedUntil && user.lockedUntil.getTime() > Date.now()) {
-    const minutes = Math.ceil((user.lockedUntil.getTime() - Date.now()) / 60_000);
-    throw new HttpError(429, 'too_many_attempts', `Too many failed sign-ins. Try again in ${minutes} minute${minutes === 1 ? '' : 's'}, or reset the password.`);
+    // the password is not even checked while paused; the dummy hash keeps the timing of a check
+    await dummyVerify(input.password);
+    throw new HttpError(401, 'bad_credentials', GENERIC_LOGIN_FAILURE);
   }
   const ok = await verifyPassword(user.passwordHash, input.password);
   if (!ok || user.disabled) {

@@ -45,3 +45,32 @@ export function resetMail(to: string, name: string, url: string) {
     { label: 'Choose a new password', url },
   );
 }
+
+export function confirmSignupMail(to: string, name: string, shopName: string, url: string) {
+  return composeMail(
+    to,
+    `Confirm your address to open ${shopName} on Causeway`,
+    [
+      `Hello ${name},`,
+      `Someone, probably you, asked to create the shop ${shopName} on Causeway with this address. Choose your password with the link below to open it; you will be its manager.`,
+      'The link works once and expires in 72 hours. If you did not ask for this, ignore this message and nothing happens.',
+    ],
+    { label: 'Choose your password', url },
+  );
+}
+
+/** Sent instead of telling a sign-up form that the address is taken. */
+export function accountExistsMail(to: string, name: string, resetUrl: string | null) {
+  return composeMail(
+    to,
+    'This address already has a Causeway account',
+    [
+      `Hello ${name},`,
+      'Someone tried to create a new shop with this address, which already has a Causeway account, so no new shop was made.',
+      resetUrl
+        ? 'If it was you, sign in as usual, or choose a new password with the link below (it works once and expires in 30 minutes). If it was not you, ignore this message.'
+        : 'Your account is disabled; ask your shop manager to enable it. If it was not you, ignore this message.',
+    ],
+    resetUrl ? { label: 'Choose a new password', url: resetUrl } : undefined,
+  );
+}

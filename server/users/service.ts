@@ -1,4 +1,5 @@
-import { and, asc, eq, ne, sql } from 'drizzle-orm';
+import { and, asc, eq, isNotNull, sql } from 'drizzle-orm';
+import { transaction, type Db } from '../../db/client';
 import type { z } from 'zod';
 import { users } from '../../db/schema';
 import type { inviteSchema, ShopUser, userPatchSchema } from '../../shared/schemas/auth';
@@ -56,21 +57,32 @@ export async function inviteUser(ctx: AppContext, manager: SessionUser, input: z
   return getShopUser(ctx, manager.shopId, userId);
 }
 
-async function otherActiveManagers(ctx: AppContext, shopId: number, userId: number): Promise<number> {
-  const [row] = await ctx.db
-    .select({ n: sql<number>`COUNT(*)` })
+/**
+ * Locks the shop's active managers: not disabled and holding a password (signed up or accepted
+ * their invite). The locking read makes two managers who demote themselves at once queue up,
+ * so the second sees the first one's change.
+ */
+async function lockActiveManagerIds(tx: Db, shopId: number): Promise<number[]> {
+  const rows = await tx
+    .select({ id: users.id })
     .from(users)
-    .where(and(eq(users.shopId, shopId), eq(users.role, 'manager'), eq(users.disabled, false), ne(users.id, userId)));
-  return Number(row?.n ?? 0);
+    .where(and(eq(users.shopId, shopId), eq(users.role, 'manager'), eq(users.disabled, false), isNotNull(users.passwordHash)))
+    .for('update');
+  return rows.map((r) => r.id);
 }
 
+const givesUpManagerSeat = (patch: z.infer<typeof userPatchSchema>) =>
+  (patch.role !== undefined && patch.role !== 'manager') || patch.disabled === true;
+
 export async function updateUser(ctx: AppContext, manager: SessionUser, userId: number, patch: z.infer<typeof userPatchSchema>): Promise<ShopUser> {
-  const current = await getShopUser(ctx, manager.shopId, userId);
-  const losesManager = current.role === 'manager' && ((patch.role && patch.role !== 'manager') || patch.disabled === true);
-  if (losesManager && (await otherActiveManagers(ctx, manager.shopId, userId)) === 0) {
-    throw new HttpError(409, 'last_manager', 'A shop needs at least one active manager. Make someone else manager first.');
-  }
-  await ctx.db.update(users).set(patch).where(and(eq(users.id, userId), eq(users.shopId, manager.shopId)));
+  await getShopUser(ctx, manager.shopId, userId); // 404 for another shop's user
+  await transaction(ctx.db, async (tx) => {
+    const managers = await lockActiveManagerIds(tx, manager.shopId);
+    if (givesUpManagerSeat(patch) && managers.includes(userId) && managers.length === 1) {
+      throw new HttpError(409, 'last_manager', 'A shop needs at least one active manager. Make someone else manager first.');
+    }
+    await tx.update(users).set(patch).where(and(eq(users.id, userId), eq(users.shopId, manager.shopId)));
+  });
   forgetSessionUser(userId);
   // Roles are re-read on every request; a disabled account must also lose the sessions it has.
   if (patch.disabled) await endSessionsOf(ctx.db, userId);

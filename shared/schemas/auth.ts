@@ -24,7 +24,6 @@ export const signupSchema = z.strictObject({
   shopName: z.string({ error: 'Enter the shop name.' }).trim().min(2, 'Enter the shop name.').max(120),
   name: nameSchema,
   email: emailSchema,
-  password: passwordSchema,
 });
 
 export const loginSchema = z.strictObject({

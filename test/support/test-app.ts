@@ -1,5 +1,5 @@
 // The real Express app over a fresh database, with helpers to act as a signed-in user.
-import pino from 'pino';
+import pino, { type Logger } from 'pino';
 import request from 'supertest';
 import type { Express } from 'express';
 import { createApp, type CausewayApp } from '../../server/app';
@@ -18,11 +18,12 @@ export interface TestApp {
   close(): Promise<void>;
 }
 
-export async function createTestApp(overrides: Record<string, string> = {}): Promise<TestApp> {
+/** `log` replaces the silent logger, for tests that read what the server logs. */
+export async function createTestApp(overrides: Record<string, string> = {}, { log }: { log?: Logger } = {}): Promise<TestApp> {
   const base = testConfig(overrides);
   const testDb = await createTestDatabase(base);
   const config = { ...base, db: { ...base.db, database: testDb.name } };
-  const ctx: AppContext = { db: testDb.database.db, config, mailer: createMailer(config), log: pino({ level: config.logLevel }) };
+  const ctx: AppContext = { db: testDb.database.db, config, mailer: createMailer(config), log: log ?? pino({ level: config.logLevel }) };
   const app = createApp({ ctx, pool: testDb.database.pool, sessionSecret: config.session.secret! });
   return {
     app,
