@@ -192,6 +192,26 @@ export function fireConsecutively(p: FiringFacts, a: number, b: number): boolean
   return n > 1 && (gap === 1 || gap === n - 1);
 }
 
+/**
+ * Whether the bank map fits the firing order. A six-cylinder V or flat engine
+ * fires evenly by alternating banks (common practice, no source), so two
+ * cylinders of one bank firing one after the other mean the bank map or the
+ * firing order is wrong. Other counts are not checked: a cross-plane V8 fires
+ * twice in a row on one bank by design. A warning in the platform form; an error
+ * for shipped content (server/seed/demo-files.ts).
+ */
+export function bankFiringWarnings(p: Pick<Platform, 'layout' | 'cylinders' | 'banks' | 'firingOrder'>): string[] {
+  const fo = p.firingOrder;
+  if (p.layout === 'inline' || p.cylinders !== 6 || !p.banks || !fo || fo.length !== 6) return [];
+  const bankOf = (c: number) => (p.banks?.['1'].includes(c) ? 1 : p.banks?.['2'].includes(c) ? 2 : null);
+  const repeats = fo
+    .map((c, i) => [c, fo[(i + 1) % fo.length] ?? c] as const)
+    .filter(([a, b]) => bankOf(a) !== null && bankOf(a) === bankOf(b));
+  if (repeats.length === 0) return [];
+  const pairs = repeats.map(([a, b]) => `${a} then ${b} on bank ${bankOf(a)}`).join(', ');
+  return [`An even-firing six-cylinder ${p.layout} engine alternates banks, but firing order ${fo.join('-')} fires ${pairs}: check the bank map and the firing order`];
+}
+
 /** Companion pairs of an even-firing order: 1-3-4-2 -> [[1, 4], [3, 2]]. */
 export function firingCompanionPairs(firingOrder: readonly number[]): [number, number][] {
   const n = firingOrder.length;

@@ -1,6 +1,7 @@
 // One trouble code: what its characters say, its title, its J1979 bytes and the shop's cases with it.
 import { Link, useLocalSearchParams, type Href } from 'expo-router';
 import { View } from 'react-native';
+import { codeCaution } from '../../shared/codes/code-cautions';
 import type { CodeDetail } from '../../shared/schemas/codes';
 import { ApiError } from '../api/client';
 import { platformName, statusLabel } from '../cases/labels';
@@ -13,14 +14,6 @@ import { Heading, Text } from '../ui/text';
 import { useCasesWithCode, useCodeDetail } from './api';
 import { DecodeTool } from './decode-tool';
 import { BackLink } from '../ui/back-link';
-
-/** Work on these systems can hurt: the caution names what, then defers to the maker's procedure. */
-function cautionFor(d: CodeDetail): string | null {
-  if (d.group === 'ignition-misfire') return 'Ignition systems carry high voltage: switch the ignition off before unplugging coils or leads, and keep clear of them while the engine runs.';
-  if (d.group === 'fuel-air-metering-injector') return 'The fuel rail stays under pressure after the engine stops: relieve it before opening any fuel line.';
-  if (d.group === 'hybrid-propulsion') return 'Hybrid drive systems carry dangerous high voltage: only trained, qualified staff may work on them, with the system isolated.';
-  return null;
-}
 
 function spaced(pair: string): string {
   return `${pair.slice(0, 2)} ${pair.slice(2)}`;
@@ -107,9 +100,16 @@ function CaseList({ code }: { code: string }) {
 function CodeBody({ d }: { d: CodeDetail }) {
   const t = useTheme();
   const { isWide } = useBreakpoint();
-  const caution = cautionFor(d);
+  // Caution first, before anyone reads on and starts work (rows and sources: shared/codes/code-cautions.ts).
+  const caution = codeCaution(d.code);
   const left = (
     <View style={{ gap: t.space.lg }}>
+      {caution ? (
+        <View style={{ gap: 2 }}>
+          <Caution>{caution.caution}</Caution>
+          <Text variant="caption" tone="slate">{`Why this caution: ${d.code} is in ${caution.from}-${caution.to}, ${caution.covers} (${caution.source}).`}</Text>
+        </View>
+      ) : null}
       <Card>
         <Row wrap>
           <Badge label={d.systemLabel} />
@@ -123,7 +123,6 @@ function CodeBody({ d }: { d: CodeDetail }) {
           Title written from memory of the public code list (SAE J2012); wording varies by edition and by vehicle.
         </Text>
       </Card>
-      {caution ? <Caution>{caution}</Caution> : null}
       <Structure d={d} />
     </View>
   );

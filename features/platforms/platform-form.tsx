@@ -1,7 +1,7 @@
 // Add or edit a platform. Checked with the same shared schema the server uses, messages beside the fields.
 import { useState } from 'react';
 import { View } from 'react-native';
-import { fuels, inductions, platformLayouts } from '../../shared/platform';
+import { bankFiringWarnings, fuels, inductions, platformLayouts } from '../../shared/platform';
 import { platformCreateSchema, type PlatformView } from '../../shared/schemas/platforms';
 import { ApiError } from '../api/client';
 import { fieldsFromIssues } from './form-errors';
@@ -77,6 +77,10 @@ export function PlatformForm({ platform, onSaved, onCancel, save }: { platform?:
     ...(induction ? { induction } : {}),
   });
 
+  // A bank map that does not fit the firing order is a warning here, not an error: the tech may know better.
+  const draft = platformCreateSchema.safeParse(record());
+  const firingWarnings = draft.success ? bankFiringWarnings(draft.data) : [];
+
   const submit = async () => {
     const parsed = platformCreateSchema.safeParse(record());
     if (!parsed.success) {
@@ -134,6 +138,9 @@ export function PlatformForm({ platform, onSaved, onCancel, save }: { platform?:
         </View>
       ) : null}
       <TextField label="Firing order" value={d.firingOrder} onChangeText={set('firingOrder')} placeholder="1-3-4-2" error={errors.firingOrder} hint="Cylinder numbers in the order they fire, e.g. 1-3-4-2." />
+      {firingWarnings.map((w) => (
+        <Notice key={w} tone="info">{`${w}. You can still save; the walk reads banks from this map.`}</Notice>
+      ))}
       <Choice label="Fuel" options={[{ value: '' as FuelChoice, label: 'Not set' }, ...fuels.map((v) => ({ value: v as FuelChoice, label: fuelLabels[v] }))]} value={fuel} onChange={setFuel} />
       <Choice label="Induction" options={[{ value: '' as InductionChoice, label: 'Not set' }, ...inductions.map((v) => ({ value: v as InductionChoice, label: inductionLabels[v] }))]} value={induction} onChange={setInduction} />
       <View style={{ flexDirection: 'row', gap: t.space.sm, flexWrap: 'wrap' }}>

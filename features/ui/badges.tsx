@@ -1,4 +1,5 @@
 import { View } from 'react-native';
+import { composeCaution } from '../../shared/walk/cautions';
 import type { ColourName } from '../theme/tokens';
 import { useTheme } from '../theme/use-theme';
 import { Text } from './text';
@@ -46,6 +47,7 @@ export function CodeChip({ code, onRemove }: { code: string; onRemove?: () => vo
 }
 
 /** Caution for work that can hurt someone: the word, an icon and amber, and the deferral. */
+/** A safety caution: the text worded once ("Caution:" is drawn here) with the one standard deferral at the end. */
 export function Caution({ children }: { children: string }) {
   const t = useTheme();
   return (
@@ -57,7 +59,7 @@ export function Caution({ children }: { children: string }) {
         <Text weight="bold" tone="amber">
           Caution:{' '}
         </Text>
-        {children} Follow the manufacturer&apos;s procedure and your shop&apos;s safety rules.
+        {composeCaution([children])}
       </Text>
     </View>
   );

@@ -20,8 +20,6 @@ export const percent = (p: number) => (p > 0 && p < 0.005 ? '<1%' : `${Math.roun
 export const minutes = (m: number) => `${m < 10 ? m.toFixed(1).replace(/\.0$/, '') : Math.round(m)} min`;
 
 /** Tree cautions start with "Caution:" and end by deferring; the Caution component already says both. */
-export const cautionText = (text: string) =>
-  text.replace(/^\s*caution:\s*/i, '').replace(/\s*Follow the manufacturer['’]s procedure\.?\s*$/i, '').trim();
 
 /** 'after-timing-work' -> 'after timing work'. */
 export const tagWords = (tag: string) => tag.replace(/-/g, ' ');

@@ -12,7 +12,7 @@ import { Notice } from '../ui/notice';
 import { Card, Row } from '../ui/surfaces';
 import { Heading, Text } from '../ui/text';
 import { TextField } from '../ui/text-field';
-import { cautionText, minutes, percent, stepStatus, SYSTEM_LABELS } from './labels';
+import { minutes, percent, stepStatus, SYSTEM_LABELS } from './labels';
 
 function unitsLike(unit: Unit): Unit[] {
   return UNITS.filter((u) => quantityOf(u) === quantityOf(unit));
@@ -145,6 +145,7 @@ export function StepPanel({
       <Heading level={2}>{step.title}</Heading>
       <Likelihood step={step} />
       {step.about ? <Text>{step.about}</Text> : null}
+      {step.caution ? <Caution>{step.caution}</Caution> : null}
       <Section title="The test">
         <Text>{step.test.do}</Text>
       </Section>
@@ -166,7 +167,6 @@ export function StepPanel({
           </Text>
         </Section>
       ) : null}
-      {step.caution ? <Caution>{cautionText(step.caution)}</Caution> : null}
       {step.evidence.length ? (
         <Section title="Confirmed fixes in this shop">
           {step.evidence.map((c) => (

@@ -4,7 +4,7 @@ import path from 'node:path';
 import { parse } from 'yaml';
 import { z } from 'zod';
 import { roleSchema } from '../../shared/schemas/auth';
-import { platformInputSchema } from '../../shared/platform';
+import { bankFiringWarnings, platformInputSchema } from '../../shared/platform';
 
 export const DEMO_PASSWORD = 'causeway-demo-2026';
 
@@ -33,5 +33,11 @@ export function readDemoShop(contentDir: string): DemoShop {
 export function readDemoPlatforms(contentDir: string) {
   const raw = readYaml(contentDir, 'platforms.yaml');
   const list = platformFileSchema.parse(Array.isArray(raw) ? raw : (raw as { platforms?: unknown })?.platforms);
-  return list.map(({ key, ...rest }) => ({ key, ...platformInputSchema.parse(rest) }));
+  return list.map(({ key, ...rest }) => {
+    const platform = platformInputSchema.parse(rest);
+    // A form only warns about a bank map that does not fit the firing order; shipped content must be right.
+    const warnings = bankFiringWarnings(platform);
+    if (warnings.length) throw new Error(`content/platforms.yaml ${key}: ${warnings.join('; ')}`);
+    return { key, ...platform };
+  });
 }

@@ -6,7 +6,7 @@ import path from 'node:path';
 import { and, eq, isNotNull, isNull } from 'drizzle-orm';
 import { parse, stringify } from 'yaml';
 import { causeTrees, cases, users } from '../../db/schema';
-import { listCauses, parseTree, TreeError, type Tree } from '../../shared/walk';
+import { listCauses, parseTree, removedCautions, TreeError, type Tree } from '../../shared/walk';
 import type { TreeDetail, TreeSummary } from '../../shared/schemas/walks';
 import type { SessionUser } from '../auth/session-user';
 import type { AppContext } from '../context';
@@ -129,7 +129,8 @@ async function usedCauseIds(ctx: AppContext, shopId: number, treeId: string): Pr
 
 /** Replace a tree for this shop with a senior's YAML; every problem is listed at once. */
 export async function saveTree(ctx: AppContext, actor: SessionUser, treeId: string, yaml: string): Promise<TreeDetail> {
-  if (!contentTrees(ctx.config.root).has(treeId)) throw notFound('That cause tree');
+  const authored = contentTrees(ctx.config.root).get(treeId);
+  if (!authored) throw notFound('That cause tree');
   let tree: Tree;
   try {
     tree = parseTree(readYaml(yaml));
@@ -138,6 +139,8 @@ export async function saveTree(ctx: AppContext, actor: SessionUser, treeId: stri
     throw error;
   }
   if (tree.id !== treeId) throw invalidTree([`id: the tree id must stay "${treeId}" (it is "${tree.id}")`]);
+  const cautionsCut = removedCautions(authored.tree, tree);
+  if (cautionsCut.length) throw invalidTree(cautionsCut);
   const kept = new Set(listCauses(tree).map((c) => c.globalId));
   const orphaned = [...(await usedCauseIds(ctx, actor.shopId, treeId))].filter((id) => !kept.has(id)).sort();
   if (orphaned.length) {

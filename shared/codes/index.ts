@@ -6,3 +6,4 @@ export * from './failure-type';
 export * from './j1979';
 export * from './uds-status';
 export * from './code-reference';
+export * from './code-cautions';

@@ -43,3 +43,4 @@ export { measurementSchema, stepMarkSchema, walkCreateSchema, walkStateSchema, t
 export { buildWriteUp } from './write-up';
 export { caseSimilarity, codeSimilarity, FAMILY_CREDIT, SIMILARITY_WEIGHTS, type SimilarityInput } from './similarity';
 export { isSameMark } from './same-mark';
+export { cautionBody, composeCaution, removedCautions, stepCaution, situationalCautions, DEFERRAL, EXHAUST_CAUTION, HYBRID_CAUTION, ROAD_TEST_CAUTION } from './cautions';

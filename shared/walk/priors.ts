@@ -1,3 +1,4 @@
+import { stepCaution } from './cautions';
 import { conditionHolds } from './conditions';
 import { misfirePatterns, type MisfirePattern, type WalkEvidence } from './evidence';
 import { listCauses, type Scope, type System, type TestStep, type Tree, type TreeSpec } from './tree-schema';
@@ -99,7 +100,8 @@ export function priorsFor(tree: Tree, ev: WalkEvidence): CausePrior[] {
       };
       if (cause.about !== undefined) prior.about = cause.about;
       if (cause.test.spec !== undefined) prior.spec = cause.test.spec;
-      if (cause.caution !== undefined) prior.caution = cause.caution;
+      const caution = stepCaution(cause, ev);
+      if (caution) prior.caution = caution;
       return prior;
     });
   const total = scored.reduce((sum, p) => sum + p.score, 0);

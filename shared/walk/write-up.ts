@@ -1,5 +1,6 @@
 /** Markdown body for a draft case, written from a walk so the tech only has to add the story. */
 import { describeSpec, formatReading } from '../units';
+import { composeCaution } from './cautions';
 import { misfiringCylinders, normaliseCode, type WalkEvidence } from './evidence';
 import type { Step, Walk } from './walk';
 
@@ -51,7 +52,7 @@ export function buildWriteUp(walk: Walk, ev: WalkEvidence): string {
     .filter((s) => s.state !== 'open')
     .sort((a, b) => (a.markOrder ?? 0) - (b.markOrder ?? 0));
   const confirmed = walk.steps.find((s) => s.id === walk.confirmedStepId);
-  const cautions = [...new Set(done.filter((s) => s.state === 'tested' && s.caution).map((s) => inline(s.caution ?? '')))];
+  const cautions = [...new Set(done.filter((s) => s.state === 'tested').map((s) => composeCaution([s.caution])).filter((c): c is string => !!c).map(inline))];
 
   const out = [`## Evidence`, '', ...evidenceLines(ev), '', `## Steps done (${inline(walk.treeTitle)})`, ''];
   out.push(...(done.length ? done.map((s, i) => stepLine(s, i + 1)) : ['No steps marked yet.']));

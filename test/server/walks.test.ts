@@ -18,11 +18,11 @@ let technician: Signed;
 let senior: Signed;
 let outsider: Signed;
 
-// Fictional platforms shaped like content/platforms.yaml: a V6 with alternate bank numbering, an inline-4 turbo.
+// Fictional platforms shaped like content/platforms.yaml: a V6 numbered 1-2-3 / 4-5-6 (so 1-4-3-6-2-5 alternates banks), an inline-4 turbo.
 async function addPlatforms(shopId: number) {
   const [v6] = await t.ctx.db
     .insert(platforms)
-    .values({ shopId, key: 'test-v6', make: 'Vexholm', model: 'Kestrune', engine: 'VT27', yearFrom: 2019, yearTo: 2026, cylinders: 6, layout: 'V', banks: { '1': [1, 3, 5], '2': [2, 4, 6] }, firingOrder: [1, 4, 3, 6, 2, 5], fuel: 'petrol', induction: 'turbo' })
+    .values({ shopId, key: 'test-v6', make: 'Vexholm', model: 'Kestrune', engine: 'VT27', yearFrom: 2019, yearTo: 2026, cylinders: 6, layout: 'V', banks: { '1': [1, 2, 3], '2': [4, 5, 6] }, firingOrder: [1, 4, 3, 6, 2, 5], fuel: 'petrol', induction: 'turbo' })
     .$returningId();
   const [i4] = await t.ctx.db
     .insert(platforms)
@@ -61,8 +61,8 @@ describe('POST /api/walks', () => {
   it('starts a misfire walk with banks from the platform and open steps in p/c order', async () => {
     const w = await start(apprentice, misfireV6());
     expect(w.treeId).toBe('misfire');
-    // VT27 numbering: odd cylinders on bank 1, even on bank 2 (content/platforms.yaml)
-    expect(w.evidence.banks).toEqual({ bank1: [5], bank2: [2], bothBanks: true });
+    // VT27 numbering: 1-2-3 on bank 1, 4-5-6 on bank 2 (content/platforms.yaml)
+    expect(w.evidence.banks).toEqual({ bank1: [2], bank2: [5], bothBanks: true });
     expect(w.evidence.cylinders).toEqual([2, 5]);
     expect(w.evidence.platform).toMatchObject({ fuel: 'petrol', induction: 'turbo', layout: 'V', cylinders: 6 });
     expect(openSum(w)).toBeCloseTo(1, 9);
@@ -76,7 +76,7 @@ describe('POST /api/walks', () => {
     // after timing work on both banks: cam timing leads with its reasons shown
     expect(w.nextStepId).toBe('cam-timing');
     expect(w.steps.find((s) => s.id === 'cam-timing')?.why.join(' ')).toMatch(/timing work/);
-    expect(w.steps.find((s) => s.id === 'cam-timing')?.caution).toMatch(/^Caution:/);
+    expect(w.steps.find((s) => s.id === 'cam-timing')?.caution).toMatch(/interference engine.*local regulations and licensed practice\.$/);
   });
 
   it('reads cylinders, context and the platform from the free text', async () => {
