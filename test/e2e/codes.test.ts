@@ -25,7 +25,7 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('trouble codes at %s siz
     await page.getByRole('heading', { name: 'What the code says' }).waitFor();
     await page.getByText('cylinder 2 is the one misfiring', { exact: false }).waitFor();
     await page.getByText(/written from memory of the public code list/i).first().waitFor();
-    await page.getByText('Caution:').waitFor();
+    await page.getByText('Caution:', { exact: true }).waitFor();
     await page.getByRole('heading', { name: 'Cases with P0302' }).waitFor();
     await page.waitForLoadState('networkidle');
     await screenshot(page, `code-p0302-${viewport}`);
