@@ -20,6 +20,7 @@ import { healthRoutes } from './health/routes';
 import { outboxRoutes } from './mail/outbox';
 import { patternRoutes } from './patterns/routes';
 import { vehicleRoutes } from './vehicles/routes';
+import { homeRoutes } from './home/routes';
 import { userRoutes } from './users/routes';
 import { searchRoutes } from './search/routes';
 import { stopSearch } from './search/client';
@@ -76,6 +77,7 @@ export function apiRouters(ctx: AppContext) {
     scanReportRoutes(ctx),
     patternRoutes(ctx),
     vehicleRoutes(ctx),
+    homeRoutes(ctx),
   ];
 }
 

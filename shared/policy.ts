@@ -19,6 +19,7 @@ export const policy = {
   'platforms.manage': 'senior',
   'codes.read': 'apprentice',
   'search.read': 'apprentice',
+  'home.read': 'apprentice',
   'walks.use': 'apprentice',
   'trees.manage': 'senior',
   'patterns.read': 'senior',

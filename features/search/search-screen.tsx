@@ -1,4 +1,5 @@
-// Home: one search field at the top. The query comes back as chips (how it was
+// Home: one search field at the top; below it (beside it on a wide screen) what waits for
+// this person today (features/home). The query comes back as chips (how it was
 // read; each removable), then result cards with their reasons. Wide screens
 // show the selected case beside the results.
 import { useEffect, useState } from 'react';
@@ -14,6 +15,7 @@ import { EmptyState, ErrorState, Skeleton } from '../ui/states';
 import { Card, Row, Screen } from '../ui/surfaces';
 import { Heading, Text } from '../ui/text';
 import { TextField } from '../ui/text-field';
+import { HomePanels } from '../home/home-panels';
 import { useSearch } from './api';
 import { FilterSheet, type Filters } from './filter-sheet';
 import { clearRecent, readRecent, rememberSearch } from './recent';
@@ -151,8 +153,9 @@ export function SearchScreen() {
 
   const body = !searching ? (
     <View style={{ gap: t.space.md }}>
-      <EmptyState title="Search the shop’s cases" hint={EXAMPLE} />
+      <Text tone="slate">{EXAMPLE}</Text>
       <Recent list={recent} onPick={run} onClear={() => setRecent(clearRecent())} />
+      {isWide ? null : <HomePanels />}
     </View>
   ) : error ? (
     <ErrorState error={error} onRetry={() => void mutate()} />
@@ -192,11 +195,13 @@ export function SearchScreen() {
           {body}
         </View>
         <View style={{ flex: 1.3, minWidth: 0, gap: t.space.md }}>
-          {searching && data && shown !== null ? (
+          {!searching ? (
+            <HomePanels />
+          ) : data && shown !== null ? (
             <CasePane id={shown} walk={walkHref(data.query, data.results.find((r) => r.id === shown) ?? null, q, filters.platformId)} />
           ) : (
             <Card>
-              <Text tone="slate">{searching ? 'Pick a result to read the case here.' : 'The case you pick shows here, beside the results.'}</Text>
+              <Text tone="slate">Pick a result to read the case here.</Text>
             </Card>
           )}
         </View>

@@ -35,7 +35,13 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('signed-in shell at %s s
         expect(await nav.getByText('Outbox').count()).toBe(role === 'manager' ? 1 : 0);
         await nav.getByText(person(role).name).waitFor();
       }
-      await screenshot(page, `home-${role}-${viewport}`);
+      // the home starts the day: every role sees its own lists, seniors and managers the review queue, managers comebacks and the digest
+      await page.getByRole('heading', { name: 'My open walks' }).waitFor();
+      await page.getByRole('heading', { name: 'Sent back to you' }).waitFor();
+      expect(await page.getByRole('heading', { name: 'Waiting for your review' }).count()).toBe(role === 'senior' || role === 'manager' ? 1 : 0);
+      expect(await page.getByRole('heading', { name: 'Comebacks this week' }).count()).toBe(role === 'manager' ? 1 : 0);
+      expect(await page.getByRole('heading', { name: 'Weekly digest' }).count()).toBe(role === 'manager' ? 1 : 0);
+      await screenshot(page, `home-${role}-${viewport}`, { fullPage: viewport === 'phone' });
       if (role === 'manager') {
         await page.goto('/team');
         await page.getByText('Invite someone').waitFor();

@@ -57,10 +57,11 @@ export async function openPage(browser: Browser, viewport: ViewportName, baseURL
   return { page, context, problems };
 }
 
-export async function screenshot(page: Page, name: string) {
+/** `fullPage` captures below the fold too (a phone's home scrolls). */
+export async function screenshot(page: Page, name: string, { fullPage = false } = {}) {
   mkdirSync(SCREENSHOT_DIR, { recursive: true });
   const file = path.join(SCREENSHOT_DIR, `${name}.png`);
-  await page.screenshot({ path: file, fullPage: false });
+  await page.screenshot({ path: file, fullPage });
   return file;
 }
 
