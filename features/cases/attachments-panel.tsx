@@ -10,6 +10,7 @@ import { Row } from '../ui/surfaces';
 import { Heading, Text } from '../ui/text';
 import { uploadAttachment } from './api';
 import { fileSize } from './labels';
+import { Icon, type IconName } from '../ui/icon';
 
 const ACCEPT = 'image/jpeg,image/png,image/webp,application/pdf,text/csv,text/plain,.csv,.txt,.pdf';
 
@@ -19,7 +20,7 @@ interface Upload {
 }
 
 /** A hidden native file input (react-native-web renders through react-dom), opened by a themed button. */
-function FilePicker({ label, icon, accept, capture, onFile, disabled }: { label: string; icon: string; accept: string; capture?: string; onFile: (f: File) => void; disabled?: boolean }) {
+function FilePicker({ label, icon, accept, capture, onFile, disabled }: { label: string; icon: IconName; accept: string; capture?: string; onFile: (f: File) => void; disabled?: boolean }) {
   const ref = useRef<HTMLInputElement | null>(null);
   return (
     <>
@@ -69,8 +70,8 @@ export function AttachmentsPanel({ caseId, attachments, ensureSaved, onUploaded,
         Photos, scan-tool exports (CSV, TXT) and PDFs, up to 15 MB each.
       </Text>
       <Row wrap>
-        <FilePicker label="Take photo" icon="◉" accept="image/*" capture="environment" onFile={send} disabled={Boolean(upload)} />
-        <FilePicker label="Add file" icon="+" accept={ACCEPT} onFile={send} disabled={Boolean(upload)} />
+        <FilePicker label="Take photo" icon="camera" accept="image/*" capture="environment" onFile={send} disabled={Boolean(upload)} />
+        <FilePicker label="Add file" icon="add" accept={ACCEPT} onFile={send} disabled={Boolean(upload)} />
       </Row>
       {upload ? (
         <View style={{ gap: t.space.xs }}>
@@ -85,9 +86,12 @@ export function AttachmentsPanel({ caseId, attachments, ensureSaved, onUploaded,
       {message ? <Notice tone={message.tone}>{message.text}</Notice> : null}
       {attachments.map((a) => (
         <Row key={a.id} wrap style={{ justifyContent: 'space-between' }}>
-          <Text variant="small" style={{ flexShrink: 1 }}>
-            {a.mime.startsWith('image/') ? '▣' : '⎙'} {a.name} · {fileSize(a.size)}
-          </Text>
+          <Row style={{ gap: 4, flexShrink: 1 }}>
+            <Icon name={a.mime.startsWith('image/') ? 'image' : 'file'} size={14} tone="slate" />
+            <Text variant="small" style={{ flexShrink: 1 }}>
+              {a.name} · {fileSize(a.size)}
+            </Text>
+          </Row>
           {a.mime.startsWith('image/') ? <Button kind="quiet" compact label="Insert in note" onPress={() => onInsert(a)} /> : null}
         </Row>
       ))}

@@ -53,17 +53,17 @@ export function CaseActions({ c, onChanged }: { c: CaseDetail; onChanged: (messa
     <Card style={{ gap: t.space.sm }}>
       <Heading level={3}>Actions</Heading>
       {error ? <Notice tone="error">{error.message}</Notice> : null}
-      {p.edit ? <Button label="Edit" icon="✎" onPress={() => router.push(`/cases/${c.id}/edit` as Href)} /> : null}
-      {p.submit ? <Button kind="secondary" label="Send for review" icon="→" busy={busy === 'submit'} onPress={() => run('submit', () => caseAction(c.id, 'submit'), 'Sent for review. The senior techs have been e-mailed.')} /> : null}
-      {p.publish ? <Button label="Publish" icon="●" busy={busy === 'publish'} onPress={() => run('publish', () => caseAction(c.id, 'publish'), 'Published: everyone in the shop can find it now.')} /> : null}
-      {p.return ? <Button kind="secondary" label="Return with comment" icon="↩" onPress={() => toggle('return')} /> : null}
+      {p.edit ? <Button label="Edit" icon="edit" onPress={() => router.push(`/cases/${c.id}/edit` as Href)} /> : null}
+      {p.submit ? <Button kind="secondary" label="Send for review" icon="next" busy={busy === 'submit'} onPress={() => run('submit', () => caseAction(c.id, 'submit'), 'Sent for review. The senior techs have been e-mailed.')} /> : null}
+      {p.publish ? <Button label="Publish" icon="published" busy={busy === 'publish'} onPress={() => run('publish', () => caseAction(c.id, 'publish'), 'Published: everyone in the shop can find it now.')} /> : null}
+      {p.return ? <Button kind="secondary" label="Return with comment" icon="returned" onPress={() => toggle('return')} /> : null}
       {open === 'return' ? (
         <View style={{ gap: t.space.sm }}>
           <TextField label="What needs changing" multiline numberOfLines={3} value={text} onChangeText={setText} error={error?.field} />
           <Button label="Return to the author" busy={busy === 'return'} onPress={() => run('return', () => caseAction(c.id, 'return', { comment: text }), 'Returned. The author has been e-mailed your comment.')} />
         </View>
       ) : null}
-      {p.confirm && !c.confirmation ? <Button kind="secondary" label="Confirm fix" icon="✓" disabled={!c.fix?.trim()} onPress={() => toggle('confirm')} /> : null}
+      {p.confirm && !c.confirmation ? <Button kind="secondary" label="Confirm fix" icon="check" disabled={!c.fix?.trim()} onPress={() => toggle('confirm')} /> : null}
       {p.confirm && !c.confirmation && !c.fix?.trim() ? (
         <Text variant="small" tone="slate">
           A fix can be confirmed once it is written down: edit the case and fill in Fix.
@@ -75,8 +75,8 @@ export function CaseActions({ c, onChanged }: { c: CaseDetail; onChanged: (messa
           <Button label="Confirm the fix held" busy={busy === 'confirm'} onPress={() => run('confirm', () => caseAction(c.id, 'confirm', text.trim() ? { note: text.trim() } : {}), 'Fix confirmed.')} />
         </View>
       ) : null}
-      <Button kind="quiet" label="Export as Markdown" icon="⤓" onPress={() => download(exportUrl(c.id))} />
-      {p.delete ? <Button kind="danger" label="Delete case" icon="✕" onPress={() => toggle('delete')} /> : null}
+      <Button kind="quiet" label="Export as Markdown" icon="download" onPress={() => download(exportUrl(c.id))} />
+      {p.delete ? <Button kind="danger" label="Delete case" icon="close" onPress={() => toggle('delete')} /> : null}
       {open === 'delete' ? (
         <View style={{ gap: t.space.sm, padding: t.space.md, borderRadius: t.radius.md, backgroundColor: t.colour.brickFill }}>
           <Text weight="semibold">Delete “{c.title}”?</Text>

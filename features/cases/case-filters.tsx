@@ -83,7 +83,7 @@ export function FilterFields({ filters, onChange, compact }: { filters: ListFilt
         <TextFilter label="Symptom tag" value={filters.tag ?? ''} hint="e.g. rough-idle; Enter applies" check={checkTag} onApply={set('tag')} />
         {compact && platforms.data ? (
           <View style={{ paddingTop: 24 }}>
-            <Button kind="secondary" compact label={`Platform: ${chosen ? platformName(chosen) : 'all'} ${platformOpen ? '▴' : '▾'}`} onPress={() => setPlatformOpen(!platformOpen)} />
+            <Button kind="secondary" compact label={`Platform: ${chosen ? platformName(chosen) : 'all'}`} icon={platformOpen ? 'collapse' : 'expand'} onPress={() => setPlatformOpen(!platformOpen)} />
           </View>
         ) : null}
       </Row>

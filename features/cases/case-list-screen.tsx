@@ -13,6 +13,7 @@ import { useCaseList } from './api';
 import { FilterFields, FilterSheet } from './case-filters';
 import { platformName, shortDate, statusLabel } from './labels';
 import { activeFilterCount, FILTER_KEYS, filtersFromParams, pageCount, toggleSort, toQueryString, withFilter, type ListFilters, type SortKey } from './list-query';
+import { Icon } from '../ui/icon';
 
 const PAGE_SIZE = 20;
 export const caseHref = (id: number) => `/cases/${id}` as Href;
@@ -23,7 +24,7 @@ function StatusBadge({ status }: { status: CaseSummary['status'] }) {
 }
 
 export function ConfirmedBadge() {
-  return <Badge label="Fix confirmed" symbol="✓" tone="moss" />;
+  return <Badge label="Fix confirmed" symbol="check" tone="moss" />;
 }
 
 function Codes({ codes, max = 4 }: { codes: string[]; max?: number }) {
@@ -87,9 +88,12 @@ function SortHeader({ filters, onChange }: { filters: ListFilters; onChange: (f:
             onPress={() => onChange(toggleSort(filters, c.key))}
             style={{ flex: c.flex, minHeight: t.layout.touchTarget, justifyContent: 'center', paddingHorizontal: t.space.md }}
           >
-            <Text variant="small" weight="semibold" tone={active ? 'tide' : 'ink'}>
-              {c.label} {active ? (dir === 'asc' ? '▲' : '▼') : ''}
-            </Text>
+            <View style={{ flexDirection: 'row', alignItems: 'center', gap: 4 }}>
+              <Text variant="small" weight="semibold" tone={active ? 'tide' : 'ink'}>
+                {c.label}
+              </Text>
+              {active ? <Icon name={dir === 'asc' ? 'collapse' : 'expand'} size={14} tone="tide" /> : null}
+            </View>
           </Pressable>
         );
       })}
@@ -160,8 +164,8 @@ export function CaseListScreen() {
   const newCase = () => router.push('/cases/new' as Href);
   const footer = isWide ? undefined : (
     <>
-      <Button kind="secondary" label={filterCount ? `Filters (${filterCount})` : 'Filters'} icon="⚲" onPress={() => setSheetOpen(true)} />
-      <Button grow label="New case" icon="+" onPress={newCase} />
+      <Button kind="secondary" label={filterCount ? `Filters (${filterCount})` : 'Filters'} icon="filter" onPress={() => setSheetOpen(true)} />
+      <Button grow label="New case" icon="add" onPress={newCase} />
     </>
   );
   return (
@@ -171,7 +175,7 @@ export function CaseListScreen() {
           <Heading>Cases</Heading>
           <Text tone="slate">{data ? `${data.total} case${data.total === 1 ? '' : 's'}${filterCount ? ' match these filters' : ''}` : 'The shop’s case notes'}</Text>
         </View>
-        {isWide ? <Button label="New case" icon="+" onPress={newCase} /> : null}
+        {isWide ? <Button label="New case" icon="add" onPress={newCase} /> : null}
       </Row>
       {isWide ? (
         <Card>

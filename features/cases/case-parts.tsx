@@ -7,6 +7,8 @@ import { Badge, CodeChip } from '../ui/badges';
 import { Card, Row } from '../ui/surfaces';
 import { Heading, Text } from '../ui/text';
 import { dateTime, fileSize, platformName, shortDate } from './labels';
+import type { IconName } from '../ui/icon';
+import { Icon } from '../ui/icon';
 
 export function Fact({ label, children }: { label: string; children: React.ReactNode }) {
   const t = useTheme();
@@ -87,7 +89,7 @@ export function CauseAndFix({ c }: { c: CaseDetail }) {
       <Fact label="Fix">{c.fix || 'Not written yet'}</Fact>
       {c.confirmation ? (
         <View style={{ gap: t.space.xs, padding: t.space.md, borderRadius: t.radius.md, backgroundColor: t.colour.mossFill }}>
-          <Badge label="Fix confirmed" symbol="✓" tone="moss" />
+          <Badge label="Fix confirmed" symbol="check" tone="moss" />
           <Text variant="small">
             by {c.confirmation.by.name}, {dateTime(c.confirmation.at)}
           </Text>
@@ -95,7 +97,7 @@ export function CauseAndFix({ c }: { c: CaseDetail }) {
         </View>
       ) : (
         <Text variant="small" tone="slate">
-          ○ Fix not confirmed yet — a senior tech confirms it once the car has stayed fixed.
+          Fix not confirmed yet — a senior tech confirms it once the car has stayed fixed.
         </Text>
       )}
     </Card>
@@ -124,7 +126,7 @@ export function AttachmentGallery({ attachments }: { attachments: Attachment[] }
       {files.map((a) => (
         <Pressable key={a.id} role="link" accessibilityLabel={`Download ${a.name}`} onPress={() => void Linking.openURL(a.url)} style={{ minHeight: t.layout.touchTarget, justifyContent: 'center' }}>
           <Row>
-            <Text aria-hidden tone="tide">⎙</Text>
+            <Icon name="file" size={16} tone="tide" />
             <Text tone="tide" style={{ flexShrink: 1 }}>{a.name}</Text>
             <Text variant="small" tone="slate">
               {fileSize(a.size)} · {a.mime}
@@ -136,12 +138,12 @@ export function AttachmentGallery({ attachments }: { attachments: Attachment[] }
   );
 }
 
-const commentKinds: Record<CaseDetail['comments'][number]['kind'], { label: string; symbol: string }> = {
-  comment: { label: 'Comment', symbol: '✎' },
-  returned: { label: 'Returned to the author', symbol: '↩' },
-  submitted: { label: 'Sent for review', symbol: '→' },
-  published: { label: 'Published', symbol: '●' },
-  confirmed: { label: 'Fix confirmed', symbol: '✓' },
+const commentKinds: Record<CaseDetail['comments'][number]['kind'], { label: string; symbol: IconName }> = {
+  comment: { label: 'Comment', symbol: 'edit' },
+  returned: { label: 'Returned to the author', symbol: 'returned' },
+  submitted: { label: 'Sent for review', symbol: 'next' },
+  published: { label: 'Published', symbol: 'published' },
+  confirmed: { label: 'Fix confirmed', symbol: 'check' },
 };
 
 export function CommentList({ comments }: { comments: CaseDetail['comments'] }) {
@@ -153,9 +155,12 @@ export function CommentList({ comments }: { comments: CaseDetail['comments'] }) 
         const kind = commentKinds[c.kind];
         return (
           <View key={c.id} style={{ gap: t.space.xxs, borderLeftWidth: 3, borderColor: c.kind === 'returned' ? t.colour.amber : t.colour.line, paddingLeft: t.space.md }}>
-            <Text variant="small" weight="semibold">
-              {kind.symbol} {kind.label} · {c.author.name}
-            </Text>
+            <Row style={{ gap: t.space.xs }}>
+              <Icon name={kind.symbol} size={14} />
+              <Text variant="small" weight="semibold">
+                {kind.label} · {c.author.name}
+              </Text>
+            </Row>
             {/* Workflow entries often just repeat their label ("Published."); show the body only when it says more. */}
             {c.body && c.body.replace(/\.$/, '') !== kind.label ? <Text serif>{c.body}</Text> : null}
             <Text variant="caption" tone="slate">
@@ -177,9 +182,12 @@ export function RepeatVisits({ repeats }: { repeats: CaseDetail['repeats'] }) {
       {repeats.map((r) => (
         <Link key={r.caseId} href={`/cases/${r.caseId}` as Href}>
           <View style={{ gap: t.space.xxs, minHeight: t.layout.touchTarget }}>
-            <Text weight="semibold" tone="tide">
-              ↺ {r.relation === 'came-back-as' ? `Came back ${r.days} days later` : `Comeback, ${r.days} days after`}: {r.title}
-            </Text>
+            <Row style={{ gap: t.space.xs }}>
+              <Icon name="comeback" size={16} tone="tide" />
+              <Text weight="semibold" tone="tide" style={{ flexShrink: 1 }}>
+                {r.relation === 'came-back-as' ? `Came back ${r.days} days later` : `Comeback, ${r.days} days after`}: {r.title}
+              </Text>
+            </Row>
             <Text variant="small" tone="slate">
               {r.reason}
             </Text>

@@ -56,7 +56,7 @@ function Header({ c }: { c: CaseDetail }) {
       <Heading>{c.title}</Heading>
       <Row wrap>
         <Badge label={s.label} symbol={s.symbol} tone={s.tone} />
-        {c.fixConfirmed ? <Badge label="Fix confirmed" symbol="✓" tone="moss" /> : null}
+        {c.fixConfirmed ? <Badge label="Fix confirmed" symbol="check" tone="moss" /> : null}
         <Text variant="small" tone="slate">
           {c.author.name} · v{c.version} · updated {dateTime(c.updatedAt)}
         </Text>
@@ -129,7 +129,7 @@ export function CaseScreen() {
   const footer =
     !isWide && c?.permissions.edit ? (
       <Link href={`/cases/${c.id}/edit` as Href} asChild>
-        <Button grow label="Edit case" icon="✎" />
+        <Button grow label="Edit case" icon="edit" />
       </Link>
     ) : undefined;
   return (

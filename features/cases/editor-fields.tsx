@@ -14,6 +14,7 @@ import { Text } from '../ui/text';
 import { TextField } from '../ui/text-field';
 import { usePlatforms, useTags } from './api';
 import { platformName } from './labels';
+import { Icon, type IconName } from '../ui/icon';
 
 function Pill({ label, onPress, a11y }: { label: string; onPress: () => void; a11y: string }) {
   const t = useTheme();
@@ -105,7 +106,7 @@ export function SymptomTags({ tags, onChange, error }: { tags: string[]; onChang
             <View key={tag} style={{ flexDirection: 'row', alignItems: 'center', gap: t.space.xs, backgroundColor: t.colour.sand, borderRadius: t.radius.pill, paddingLeft: t.space.md }}>
               <Text variant="small">{tag}</Text>
               <Pressable role="button" accessibilityLabel={`Remove ${tag}`} onPress={() => onChange(tags.filter((x) => x !== tag))} style={{ minWidth: 36, minHeight: 36, alignItems: 'center', justifyContent: 'center' }}>
-                <Text variant="small" tone="slate">✕</Text>
+                <Icon name="close" size={14} tone="slate" />
               </Pressable>
             </View>
           ))}
@@ -138,15 +139,26 @@ export function PlatformPicker({ value, onChange }: { value: number | null; onCh
   return <Choice label="Platform" options={options} value={value === null ? '' : String(value)} onChange={(v) => onChange(v ? Number(v) : null)} />;
 }
 
-/** One line for a VIN check: the first refusal, else the first North American warning, else ✓ with the years. */
-function VinCheckLine({ check }: { check: VinCheck }) {
-  if (!check.valid) return <Text variant="small" tone="brick" role="status">✕ {check.errors[0]}</Text>;
-  if (check.warnings.length) return <Text variant="small" tone="amber" role="status">! {check.warnings[0]}</Text>;
-  const years = check.modelYears.length ? ` · model year ${check.modelYears.join(' or ')}` : '';
-  return <Text variant="small" tone="moss" role="status">✓ Valid VIN (check digit {check.checkDigit}){years}</Text>;
+function StatusLine({ icon, tone, text }: { icon: IconName; tone: 'brick' | 'amber' | 'moss'; text: string }) {
+  return (
+    <Row role="status" style={{ gap: 4 }}>
+      <Icon name={icon} size={14} tone={tone} />
+      <Text variant="small" tone={tone} style={{ flexShrink: 1 }}>
+        {text}
+      </Text>
+    </Row>
+  );
 }
 
-/** The VIN check as you type: ✓ with the model-year candidates, a warning, or the first problem found. */
+/** One line for a VIN check: the first refusal, else the first North American warning, else a tick with the years. */
+function VinCheckLine({ check }: { check: VinCheck }) {
+  if (!check.valid) return <StatusLine icon="close" tone="brick" text={check.errors[0] ?? 'Not a VIN.'} />;
+  if (check.warnings.length) return <StatusLine icon="alert" tone="amber" text={check.warnings[0]!} />;
+  const years = check.modelYears.length ? ` · model year ${check.modelYears.join(' or ')}` : '';
+  return <StatusLine icon="check" tone="moss" text={`Valid VIN (check digit ${check.checkDigit})${years}`} />;
+}
+
+/** The VIN check as you type: a tick with the model-year candidates, a warning, or the first problem found. */
 export function VinField({ value, onChange, error }: { value: string; onChange: (v: string) => void; error?: string }) {
   const t = useTheme();
   const check = value.trim() ? checkVin(value) : null;

@@ -74,7 +74,7 @@ function ConflictPanel({ mine, theirs, onKeepMine, onTakeTheirs }: { mine: Draft
         {column(`Theirs (version ${theirs.version}, on the server)`, other)}
       </View>
       <Row wrap>
-        <Button label="Keep mine" icon="✓" onPress={onKeepMine} />
+        <Button label="Keep mine" icon="check" onPress={onKeepMine} />
         <Button kind="secondary" label="Take theirs" onPress={onTakeTheirs} />
       </Row>
     </Card>
@@ -144,7 +144,6 @@ function CaseEditor({ storageKey, initial, startInConflict, server, canSubmit, c
     <>
       <View style={{ flex: 1, justifyContent: 'center' }}>
         <Text role="status" aria-live="polite" variant="small" tone={auto.saveState.kind === 'saved' ? 'moss' : auto.saveState.kind === 'error' || auto.saveState.kind === 'conflict' ? 'brick' : 'slate'}>
-          {auto.saveState.kind === 'saved' ? '✓ ' : ''}
           {saveStateLabel(auto.saveState)}
         </Text>
       </View>

@@ -1,11 +1,12 @@
 // Words and symbols for case facts: status is never colour alone.
 import type { ColourName } from '../theme/tokens';
 import type { CaseStatus } from '../../shared/roles';
+import type { IconName } from '../ui/icon';
 
-export const statusLabel: Record<CaseStatus, { label: string; symbol: string; tone: ColourName }> = {
-  draft: { label: 'Draft', symbol: '✎', tone: 'slate' },
-  review: { label: 'In review', symbol: '◔', tone: 'amber' },
-  published: { label: 'Published', symbol: '●', tone: 'tide' },
+export const statusLabel: Record<CaseStatus, { label: string; symbol: IconName; tone: ColourName }> = {
+  draft: { label: 'Draft', symbol: 'edit', tone: 'slate' },
+  review: { label: 'In review', symbol: 'waiting', tone: 'amber' },
+  published: { label: 'Published', symbol: 'published', tone: 'tide' },
 };
 
 export const platformName = (p: { make: string; model: string; engine: string } | null) => (p ? `${p.make} ${p.model} · ${p.engine}` : 'No platform');

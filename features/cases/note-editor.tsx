@@ -6,13 +6,14 @@ import { useTheme } from '../theme/use-theme';
 import { Button } from '../ui/button';
 import { Row } from '../ui/surfaces';
 import { Text } from '../ui/text';
+import type { IconName } from '../ui/icon';
 
-const tools: { kind: SyntaxKind; label: string; icon: string }[] = [
-  { kind: 'heading', label: 'Heading', icon: 'H' },
-  { kind: 'list', label: 'List', icon: '•' },
-  { kind: 'checklist', label: 'Checklist', icon: '☐' },
-  { kind: 'table', label: 'Table', icon: '▦' },
-  { kind: 'code', label: 'Code', icon: '‹›' },
+const tools: { kind: SyntaxKind; label: string; icon: IconName }[] = [
+  { kind: 'heading', label: 'Heading', icon: 'heading' },
+  { kind: 'list', label: 'List', icon: 'list' },
+  { kind: 'checklist', label: 'Checklist', icon: 'checklist' },
+  { kind: 'table', label: 'Table', icon: 'table' },
+  { kind: 'code', label: 'Code', icon: 'codeBlock' },
 ];
 
 export function NoteEditor({ value, onChange, error, insertRef }: { value: string; onChange: (v: string) => void; error?: string; insertRef?: React.MutableRefObject<((text: string) => void) | null> }) {

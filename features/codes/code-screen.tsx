@@ -84,7 +84,7 @@ function CaseList({ code }: { code: string }) {
               </Text>
               <Row wrap>
                 <Badge label={s.label} symbol={s.symbol} tone={s.tone} />
-                {c.fixConfirmed ? <Badge label="Fix confirmed" symbol="✓" tone="moss" /> : null}
+                {c.fixConfirmed ? <Badge label="Fix confirmed" symbol="check" tone="moss" /> : null}
                 {c.codes.map((k) => (
                   <CodeChip key={k} code={k} />
                 ))}
@@ -114,7 +114,7 @@ function CodeBody({ d }: { d: CodeDetail }) {
         <Row wrap>
           <Badge label={d.systemLabel} />
           <Badge label={d.scopeLabel} />
-          {d.misfire ? <Badge label={d.misfire.cylinder ? `Misfire, cylinder ${d.misfire.cylinder}` : 'Misfire, random or multiple'} symbol="✱" tone="brick" /> : null}
+          {d.misfire ? <Badge label={d.misfire.cylinder ? `Misfire, cylinder ${d.misfire.cylinder}` : 'Misfire, random or multiple'} symbol="misfire" tone="brick" /> : null}
         </Row>
         <Text serif variant="lead">
           {d.title ?? (d.scope === 'generic' ? 'Not in our list of generic titles.' : 'A manufacturer code: its title comes from the vehicle maker’s information.')}

@@ -13,6 +13,7 @@ import { Heading, Text } from '../ui/text';
 import { TextField } from '../ui/text-field';
 import { useCodeList } from './api';
 import { DecodeTool } from './decode-tool';
+import { Icon } from '../ui/icon';
 
 const systemOptions = [
   { value: '', label: 'All' },
@@ -48,8 +49,9 @@ function Results({ data, onPage }: { data: CodeListResponse; onPage: (p: number)
             <Text style={{ flex: 1 }}>{data.total ? 'This exact code has its own page.' : 'Not in the generic list (manufacturer codes have no generic title), but its structure can still be read.'}</Text>
           </Row>
           <Link href={`/codes/${data.exact}`}>
-            <View style={{ minHeight: t.layout.touchTarget, justifyContent: 'center' }}>
-              <Text tone="tide" weight="semibold">Open {data.exact} →</Text>
+            <View style={{ minHeight: t.layout.touchTarget, flexDirection: 'row', alignItems: 'center', gap: t.space.xs }}>
+              <Text tone="tide" weight="semibold">Open {data.exact}</Text>
+              <Icon name="next" size={16} tone="tide" />
             </View>
           </Link>
         </Card>

@@ -10,6 +10,7 @@ import { Text } from '../ui/text';
 import { isCautionQuote, type NoteNode } from './caution';
 import { createNoteParser } from './note-parser';
 import { safeImageSrc, safeLinkHref } from './safety';
+import { Icon } from '../ui/icon';
 
 const parser = createNoteParser();
 
@@ -88,9 +89,9 @@ function rules(t: Theme, attachmentIds: ReadonlySet<number>): RenderRules {
           aria-label="Caution"
           style={{ flexDirection: 'row', gap: t.space.sm, padding: t.space.md, paddingBottom: 0, marginBottom: t.space.md, borderRadius: t.radius.md, borderLeftWidth: 4, borderColor: t.colour.amber, backgroundColor: t.colour.amberFill }}
         >
-          <Text aria-hidden tone="amber" weight="bold" style={{ paddingTop: 2 }}>
-            ⚠
-          </Text>
+          <View style={{ paddingTop: 2 }}>
+            <Icon name="warning" tone="amber" />
+          </View>
           <View style={{ flex: 1 }}>{children}</View>
         </View>
       );
@@ -101,9 +102,9 @@ function rules(t: Theme, attachmentIds: ReadonlySet<number>): RenderRules {
       const done = task === 'done';
       return (
         <View key={node.key} role="checkbox" aria-checked={done} aria-readonly style={{ flexDirection: 'row', gap: t.space.sm, marginBottom: t.space.xs }}>
-          <Text aria-hidden tone={done ? 'moss' : 'slate'} weight="bold" style={{ width: 20 }}>
-            {done ? '☑' : '☐'}
-          </Text>
+          <View style={{ width: 20, paddingTop: 2 }}>
+            <Icon name={done ? 'ticked' : 'unticked'} size={16} tone={done ? 'moss' : 'slate'} />
+          </View>
           <View style={{ flex: 1 }}>{children}</View>
         </View>
       );

@@ -115,7 +115,7 @@ function Section({ title, hint, chart, table, csv, query }: { title: string; hin
         {chart ? <View style={{ flex: isWide ? 1 : undefined, width: isWide ? undefined : '100%', minWidth: 0 }}>{chart}</View> : null}
         <View style={{ flex: isWide && chart ? 1 : undefined, width: isWide && chart ? undefined : '100%', minWidth: 0, gap: t.space.sm }}>
           {table}
-          {csv ? <Button compact kind="secondary" icon="⤓" label={`Download CSV: ${title}`} onPress={() => downloadCsv(csv, query)} /> : null}
+          {csv ? <Button compact kind="secondary" icon="download" label={`Download CSV: ${title}`} onPress={() => downloadCsv(csv, query)} /> : null}
         </View>
       </View>
     </Card>
@@ -143,7 +143,7 @@ function Comebacks({ data }: { data: PatternsResponse }) {
       {data.comebacks.map((c) => (
         <View key={c.repeatCaseId} style={{ gap: t.space.xs, paddingBottom: t.space.md, borderBottomWidth: 1, borderColor: t.colour.line }}>
           <Row wrap>
-            <Badge label="Comeback" symbol="↻" tone="brick" />
+            <Badge label="Comeback" symbol="comeback" tone="brick" />
             {c.code ? <CodeChip code={c.code} /> : null}
             <Text variant="small" tone="slate">
               back after {plural(c.days, 'day')}
@@ -250,7 +250,7 @@ function Dashboard({ data, query }: { data: PatternsResponse; query: PeriodQuery
           data.repeatPatterns.map((p) => (
             <View key={`${p.platformId}-${p.causeKey}`} style={{ gap: t.space.xs, paddingBottom: t.space.sm, borderBottomWidth: 1, borderColor: t.colour.line }}>
               <Row wrap>
-                <Badge label={`${plural(p.vehicles, 'vehicle')}`} symbol="⚑" tone="amber" />
+                <Badge label={`${plural(p.vehicles, 'vehicle')}`} symbol="code" tone="amber" />
                 <Text weight="semibold">{p.platform}</Text>
               </Row>
               <Text variant="small">{p.causeLabel}</Text>
@@ -292,7 +292,7 @@ function DigestButton() {
   };
   return (
     <View style={{ gap: 8, alignItems: 'flex-start' }}>
-      <Button label="Send digest now" icon="✉" kind="secondary" busy={state.busy} onPress={send} />
+      <Button label="Send digest now" icon="mail" kind="secondary" busy={state.busy} onPress={send} />
       {state.message ? <Notice tone={state.message.tone}>{state.message.text}</Notice> : null}
     </View>
   );

@@ -24,7 +24,7 @@ export function PlatformsScreen() {
     <Screen>
       <Row wrap style={{ justifyContent: 'space-between' }}>
         <Heading>Platforms</Heading>
-        {canManage ? <Button label="Add a platform" icon="+" compact onPress={add} /> : null}
+        {canManage ? <Button label="Add a platform" icon="add" compact onPress={add} /> : null}
       </Row>
       <Text tone="slate">The engines the shop works on: which cylinders sit on which bank and the firing order, so misfires on several cylinders can be read at a glance.</Text>
       <Loaded data={data} error={error} retry={() => void mutate()} lines={4}>

@@ -16,14 +16,15 @@ import { Heading, Text } from '../ui/text';
 import { TextField } from '../ui/text-field';
 import { readPastedReport, readUploadedReport } from './api';
 import { pickTextFile } from './pick-file';
+import type { IconName } from '../ui/icon';
 
 type Status = NonNullable<ScanReportView['codes'][number]['status']>;
-const statusWords: Record<Status, { label: string; symbol: string; tone: ColourName }> = {
-  active: { label: 'Active now', symbol: '▲', tone: 'brick' },
-  confirmed: { label: 'Confirmed', symbol: '●', tone: 'brick' },
-  permanent: { label: 'Permanent', symbol: '■', tone: 'brick' },
-  pending: { label: 'Pending', symbol: '◔', tone: 'amber' },
-  history: { label: 'History', symbol: '○', tone: 'slate' },
+const statusWords: Record<Status, { label: string; symbol: IconName; tone: ColourName }> = {
+  active: { label: 'Active now', symbol: 'active', tone: 'brick' },
+  confirmed: { label: 'Confirmed', symbol: 'published', tone: 'brick' },
+  permanent: { label: 'Permanent', symbol: 'permanent', tone: 'brick' },
+  pending: { label: 'Pending', symbol: 'waiting', tone: 'amber' },
+  history: { label: 'History', symbol: 'open', tone: 'slate' },
 };
 
 /** Links into the case and walk forms, which read these URL parameters. */
@@ -60,7 +61,7 @@ function Found({ report }: { report: ScanReportView }) {
             <View key={full} style={{ gap: t.space.xs, borderTopWidth: 1, borderColor: t.colour.line, paddingTop: t.space.sm }}>
               <Row wrap>
                 <CodeLink code={full} />
-                <View>{s ? <Badge label={s.label} symbol={s.symbol} tone={s.tone} /> : <Badge label="Status not given" symbol="?" />}</View>
+                <View>{s ? <Badge label={s.label} symbol={s.symbol} tone={s.tone} /> : <Badge label="Status not given" symbol="unknown" />}</View>
               </Row>
               <Text>{c.title ?? 'No generic title (manufacturer code or not in our list).'}</Text>
               {c.ftbMeaning ? (
@@ -107,8 +108,8 @@ function Found({ report }: { report: ScanReportView }) {
         </Text>
       </Card>
       <Row wrap>
-        <Button label="Start a case" icon="✎" onPress={() => router.push(caseLinkFor(report) as Href)} />
-        {report.codes.length ? <Button label="Start a cause walk" icon="→" kind="secondary" onPress={() => router.push(walkLinkFor(report) as Href)} /> : null}
+        <Button label="Start a case" icon="edit" onPress={() => router.push(caseLinkFor(report) as Href)} />
+        {report.codes.length ? <Button label="Start a cause walk" icon="next" kind="secondary" onPress={() => router.push(walkLinkFor(report) as Href)} /> : null}
       </Row>
     </View>
   );
@@ -162,7 +163,7 @@ export function ScanScreen() {
       />
       <Row wrap>
         <Button label="Read report" onPress={() => run('paste', () => readPastedReport(text))} busy={busy === 'paste'} disabled={text.trim() === '' || busy !== null} />
-        <Button label="Upload a file" icon="⇪" kind="secondary" onPress={upload} busy={busy === 'file'} disabled={busy !== null} />
+        <Button label="Upload a file" icon="upload" kind="secondary" onPress={upload} busy={busy === 'file'} disabled={busy !== null} />
       </Row>
       {fileName ? (
         <Text variant="small" tone="slate">
@@ -194,7 +195,7 @@ export function ScanScreen() {
 }
 
 function vinBadge(check: ScanReportView['vinCheck']) {
-  if (!check?.valid) return <Badge label="Not a VIN" symbol="✕" tone="brick" />;
-  if (check.warnings.length) return <Badge label="VIN outside North American rules" symbol="!" tone="amber" />;
-  return <Badge label="Check digit OK" symbol="✓" tone="moss" />;
+  if (!check?.valid) return <Badge label="Not a VIN" symbol="close" tone="brick" />;
+  if (check.warnings.length) return <Badge label="VIN outside North American rules" symbol="alert" tone="amber" />;
+  return <Badge label="Check digit OK" symbol="check" tone="moss" />;
 }

@@ -11,6 +11,7 @@ import { Button } from '../ui/button';
 import { Loaded } from '../ui/states';
 import { Card, Row } from '../ui/surfaces';
 import { Heading, Text } from '../ui/text';
+import { Icon } from '../ui/icon';
 
 const KIND_WORD: Record<SearchChip['kind'] | 'filter', string> = {
   code: 'Code',
@@ -22,7 +23,7 @@ const KIND_WORD: Record<SearchChip['kind'] | 'filter', string> = {
   filter: 'Filter',
 };
 
-/** A chip showing how the query was read; the ✕ drops it and searches again. 44 px tall. */
+/** A chip showing how the query was read; the cross drops it and searches again. 44 px tall. */
 export function Chip({ kind, label, onRemove }: { kind: SearchChip['kind'] | 'filter'; label: string; onRemove?: () => void }) {
   const t = useTheme();
   const body = (
@@ -34,9 +35,7 @@ export function Chip({ kind, label, onRemove }: { kind: SearchChip['kind'] | 'fi
         {label}
       </Text>
       {onRemove ? (
-        <Text variant="small" tone="slate" aria-hidden>
-          {' '}✕
-        </Text>
+        <Icon name="close" size={14} tone="slate" />
       ) : null}
     </View>
   );
@@ -63,7 +62,7 @@ export function StatusBadges({ status, fixConfirmed }: { status: SearchResult['s
   return (
     <Row wrap>
       <Badge label={s.label} symbol={s.symbol} tone={s.tone} />
-      {fixConfirmed ? <Badge label="Fix confirmed" symbol="✓" tone="moss" /> : <Badge label="Fix not confirmed" symbol="○" tone="slate" />}
+      {fixConfirmed ? <Badge label="Fix confirmed" symbol="check" tone="moss" /> : <Badge label="Fix not confirmed" symbol="open" tone="slate" />}
     </Row>
   );
 }
@@ -76,7 +75,7 @@ function CaseActions({ id, walk, primary }: { id: number; walk: Href; primary: b
   return (
     <Row wrap>
       <Button label="Open case" kind={primary ? 'primary' : 'secondary'} compact onPress={() => router.push(caseHref(id))} />
-      <Button label="Start cause walk" kind={primary ? 'secondary' : 'quiet'} compact icon="→" onPress={() => router.push(walk)} />
+      <Button label="Start cause walk" kind={primary ? 'secondary' : 'quiet'} compact icon="next" onPress={() => router.push(walk)} />
     </Row>
   );
 }

@@ -59,7 +59,7 @@ function Recent({ list, onPick, onClear }: { list: string[]; onPick: (q: string)
         <Button label="Clear" kind="quiet" compact onPress={onClear} />
       </Row>
       {list.map((q) => (
-        <Button key={q} label={q} kind="quiet" icon="↺" onPress={() => onPick(q)} />
+        <Button key={q} label={q} kind="quiet" icon="recent" onPress={() => onPick(q)} />
       ))}
     </Card>
   );
@@ -135,7 +135,7 @@ export function SearchScreen() {
         maxLength={500}
       />
       <Row wrap>
-        <Button label="Search" icon="⌕" onPress={() => run(text)} />
+        <Button label="Search" icon="search" onPress={() => run(text)} />
         <Button label={filterCount ? `Filters (${filterCount})` : 'Filters'} kind="secondary" onPress={() => setSheet(true)} />
         {text ? <Button label="Clear" kind="quiet" onPress={() => run('')} /> : null}
       </Row>

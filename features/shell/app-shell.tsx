@@ -8,6 +8,7 @@ import type { UserView } from '../../shared/schemas/auth';
 import { useBreakpoint, useTheme } from '../theme/use-theme';
 import { Text } from '../ui/text';
 import { isActive, navFor, type NavItem } from './nav-items';
+import { Icon } from '../ui/icon';
 
 function NavLink({ item, active, compact }: { item: NavItem; active: boolean; compact: boolean }) {
   const t = useTheme();
@@ -28,9 +29,7 @@ function NavLink({ item, active, compact }: { item: NavItem; active: boolean; co
           borderColor: active ? t.colour.tide : 'transparent',
         }}
       >
-        <Text aria-hidden tone={tone} variant={compact ? 'lead' : 'body'}>
-          {item.symbol}
-        </Text>
+        <Icon name={item.symbol} size={compact ? 22 : 18} tone={tone} />
         <Text tone={active ? 'ink' : 'slate'} variant={compact ? 'caption' : 'body'} weight={active ? 'semibold' : 'regular'}>
           {item.label}
         </Text>

@@ -1,31 +1,32 @@
 import type { Href } from 'expo-router';
 import { allows, type Permission } from '../../shared/policy';
 import type { UserView } from '../../shared/schemas/auth';
+import type { IconName } from '../ui/icon';
 
 export interface NavItem {
   href: Href;
   /** Path prefix that marks this item active. */
   match: string;
   label: string;
-  symbol: string;
+  symbol: IconName;
   permission: Permission;
   /** Shown in the phone's bottom bar; the rest live under "More". */
   primary: boolean;
 }
 
 export const NAV_ITEMS: NavItem[] = [
-  { href: '/', match: '/', label: 'Search', symbol: '⌕', permission: 'search.read', primary: true },
-  { href: '/cases', match: '/cases', label: 'Cases', symbol: '▤', permission: 'cases.read', primary: true },
-  { href: '/walks', match: '/walks', label: 'Walks', symbol: '➜', permission: 'walks.use', primary: true },
-  { href: '/codes', match: '/codes', label: 'Codes', symbol: '⚑', permission: 'codes.read', primary: true },
-  { href: '/scan', match: '/scan', label: 'Scan report', symbol: '⇪', permission: 'cases.write', primary: false },
-  { href: '/platforms', match: '/platforms', label: 'Platforms', symbol: '⚙', permission: 'platforms.read', primary: false },
-  { href: '/trees', match: '/trees', label: 'Cause trees', symbol: '⋔', permission: 'trees.manage', primary: false },
-  { href: '/patterns', match: '/patterns', label: 'Patterns', symbol: '▦', permission: 'patterns.read', primary: false },
-  { href: '/vehicles', match: '/vehicles', label: 'Vehicles', symbol: '▣', permission: 'cases.read', primary: false },
-  { href: '/team', match: '/team', label: 'Team', symbol: '☰', permission: 'users.manage', primary: false },
-  { href: '/outbox', match: '/outbox', label: 'Outbox', symbol: '✉', permission: 'outbox.read', primary: false },
-  { href: '/account', match: '/account', label: 'Account', symbol: '◉', permission: 'auth.self', primary: true },
+  { href: '/', match: '/', label: 'Search', symbol: 'search', permission: 'search.read', primary: true },
+  { href: '/cases', match: '/cases', label: 'Cases', symbol: 'cases', permission: 'cases.read', primary: true },
+  { href: '/walks', match: '/walks', label: 'Walks', symbol: 'walk', permission: 'walks.use', primary: true },
+  { href: '/codes', match: '/codes', label: 'Codes', symbol: 'code', permission: 'codes.read', primary: true },
+  { href: '/scan', match: '/scan', label: 'Scan report', symbol: 'upload', permission: 'cases.write', primary: false },
+  { href: '/platforms', match: '/platforms', label: 'Platforms', symbol: 'platform', permission: 'platforms.read', primary: false },
+  { href: '/trees', match: '/trees', label: 'Cause trees', symbol: 'tree', permission: 'trees.manage', primary: false },
+  { href: '/patterns', match: '/patterns', label: 'Patterns', symbol: 'patterns', permission: 'patterns.read', primary: false },
+  { href: '/vehicles', match: '/vehicles', label: 'Vehicles', symbol: 'vehicle', permission: 'cases.read', primary: false },
+  { href: '/team', match: '/team', label: 'Team', symbol: 'team', permission: 'users.manage', primary: false },
+  { href: '/outbox', match: '/outbox', label: 'Outbox', symbol: 'mail', permission: 'outbox.read', primary: false },
+  { href: '/account', match: '/account', label: 'Account', symbol: 'account', permission: 'auth.self', primary: true },
 ];
 
 export function navFor(user: UserView): NavItem[] {

@@ -69,8 +69,8 @@ function UserRow({ user, isSelf, onChanged }: { user: ShopUser; isSelf: boolean;
         </View>
         <Row wrap>
           <Badge label={roleLabels[user.role]} />
-          {user.invited ? <Badge label="Invite sent" symbol="✉" tone="amber" /> : null}
-          {user.disabled ? <Badge label="Disabled" symbol="⊘" tone="brick" /> : null}
+          {user.invited ? <Badge label="Invite sent" symbol="mail" tone="amber" /> : null}
+          {user.disabled ? <Badge label="Disabled" symbol="ruledOut" tone="brick" /> : null}
         </Row>
       </Row>
       <Choice label={`Role of ${user.name}`} options={roleOptions} value={user.role} onChange={(r) => change({ role: r }, `${user.name} is now ${roleLabels[r]}.`)} />

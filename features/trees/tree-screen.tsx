@@ -15,6 +15,7 @@ import { Heading, Text } from '../ui/text';
 import { TextField } from '../ui/text-field';
 import { SYSTEM_LABELS } from '../walks/labels';
 import { saveTree, useTree } from './api';
+import { Icon } from '../ui/icon';
 
 function TreeRead({ detail }: { detail: TreeDetail }) {
   const t = useTheme();
@@ -31,7 +32,7 @@ function TreeRead({ detail }: { detail: TreeDetail }) {
                 {c.id} · weight {c.weight} · {c.minutes} min{c.scope ? ` · scope ${c.scope}` : ''}
                 {c.test.spec ? ` · spec ${describeSpec(c.test.spec)}` : ''}
               </Text>
-              {c.caution ? <Badge label="Has a caution" symbol="⚠" tone="amber" /> : null}
+              {c.caution ? <Badge label="Has a caution" symbol="warning" tone="amber" /> : null}
             </View>
           ))}
         </Card>
@@ -69,15 +70,18 @@ function TreeEdit({ detail, onSaved, onCancel }: { detail: TreeDetail; onSaved: 
       {problems.length ? (
         <Card accessibilityLabel="Problems">
           {problems.map((p, i) => (
-            <Text key={i} mono variant="small">
-              ✕ {p}
-            </Text>
+            <Row key={i} style={{ gap: 4, alignItems: 'flex-start' }}>
+              <Icon name="close" size={14} tone="brick" />
+              <Text mono variant="small" style={{ flexShrink: 1 }}>
+                {p}
+              </Text>
+            </Row>
           ))}
         </Card>
       ) : null}
       <TextField label="Tree as YAML" value={yaml} onChangeText={setYaml} multiline mono autoCapitalize="none" autoCorrect={false} spellCheck={false} style={{ minHeight: 480 }} />
       <Row wrap>
-        <Button label="Save tree" icon="✓" onPress={save} busy={busy} />
+        <Button label="Save tree" icon="check" onPress={save} busy={busy} />
         <Button label="Cancel" kind="quiet" onPress={onCancel} disabled={busy} />
       </Row>
     </View>
@@ -97,10 +101,10 @@ export function TreeScreen() {
           <>
             <Row wrap style={{ justifyContent: 'space-between' }}>
               <Heading>{tree.title}</Heading>
-              {editing ? null : <Button label="Edit as YAML" icon="✎" kind="secondary" onPress={() => { setSaved(false); setEditing(true); }} />}
+              {editing ? null : <Button label="Edit as YAML" icon="edit" kind="secondary" onPress={() => { setSaved(false); setEditing(true); }} />}
             </Row>
             <Row wrap>
-              {tree.source === 'shop' ? <Badge label={`Edited by ${tree.updatedBy?.name ?? 'this shop'}`} symbol="✎" tone="amber" /> : <Badge label="As shipped" symbol="○" />}
+              {tree.source === 'shop' ? <Badge label={`Edited by ${tree.updatedBy?.name ?? 'this shop'}`} symbol="edit" tone="amber" /> : <Badge label="As shipped" symbol="open" />}
               <Text variant="small" tone="slate">
                 {tree.causes} causes
               </Text>

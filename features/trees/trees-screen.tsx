@@ -19,7 +19,7 @@ function TreeCard({ tree }: { tree: TreeSummary }) {
           <Text serif weight="semibold" variant="lead" style={{ flexShrink: 1 }}>
             {tree.title}
           </Text>
-          {tree.source === 'shop' ? <Badge label="Edited by this shop" symbol="✎" tone="amber" /> : <Badge label="As shipped" symbol="○" />}
+          {tree.source === 'shop' ? <Badge label="Edited by this shop" symbol="edit" tone="amber" /> : <Badge label="As shipped" symbol="open" />}
         </Row>
         <Text variant="small" tone="slate">
           {tree.causes} causes · {tree.systems.map((s) => SYSTEM_LABELS[s as keyof typeof SYSTEM_LABELS] ?? s).join(', ')}

@@ -1,11 +1,12 @@
-import { View } from 'react-native';
+import { Pressable, View } from 'react-native';
 import { composeCaution } from '../../shared/walk/cautions';
 import type { ColourName } from '../theme/tokens';
 import { useTheme } from '../theme/use-theme';
+import { Icon, type IconName } from './icon';
 import { Text } from './text';
 
 /** A status word with a symbol; colour is never the only signal. */
-export function Badge({ label, symbol, tone = 'slate' }: { label: string; symbol?: string; tone?: ColourName }) {
+export function Badge({ label, symbol, tone = 'slate' }: { label: string; symbol?: IconName; tone?: ColourName }) {
   const t = useTheme();
   return (
     <View
@@ -21,7 +22,7 @@ export function Badge({ label, symbol, tone = 'slate' }: { label: string; symbol
         alignSelf: 'flex-start',
       }}
     >
-      {symbol ? <Text variant="caption" tone={tone} aria-hidden>{symbol}</Text> : null}
+      {symbol ? <Icon name={symbol} size={13} tone={tone} /> : null}
       <Text variant="caption" weight="semibold" tone={tone}>
         {label}
       </Text>
@@ -38,9 +39,9 @@ export function CodeChip({ code, onRemove }: { code: string; onRemove?: () => vo
         {code}
       </Text>
       {onRemove ? (
-        <Text variant="small" tone="slate" role="button" accessibilityLabel={`Remove ${code}`} onPress={onRemove} style={{ paddingHorizontal: 4 }}>
-          ✕
-        </Text>
+        <Pressable role="button" accessibilityLabel={`Remove ${code}`} onPress={onRemove} style={{ paddingHorizontal: 4 }}>
+          <Icon name="close" size={14} tone="slate" />
+        </Pressable>
       ) : null}
     </View>
   );
@@ -52,9 +53,7 @@ export function Caution({ children }: { children: string }) {
   const t = useTheme();
   return (
     <View role="note" style={{ flexDirection: 'row', gap: t.space.sm, padding: t.space.md, borderRadius: t.radius.md, borderLeftWidth: 4, borderColor: t.colour.amber, backgroundColor: t.colour.amberFill }}>
-      <Text aria-hidden tone="amber" weight="bold">
-        ⚠
-      </Text>
+      <Icon name="warning" tone="amber" />
       <Text style={{ flex: 1 }}>
         <Text weight="bold" tone="amber">
           Caution:{' '}

@@ -1,12 +1,13 @@
 import { ActivityIndicator, Pressable, type PressableProps, StyleSheet, View } from 'react-native';
 import { useTheme } from '../theme/use-theme';
+import { Icon, type IconName } from './icon';
 import { Text } from './text';
 
 export interface ButtonProps extends Omit<PressableProps, 'children' | 'style'> {
   label: string;
   kind?: 'primary' | 'secondary' | 'danger' | 'quiet';
   busy?: boolean;
-  icon?: string;
+  icon?: IconName;
   compact?: boolean;
   grow?: boolean;
 }
@@ -47,7 +48,7 @@ export function Button({ label, kind = 'primary', busy, icon, compact, grow, dis
       {...rest}
     >
       <View style={styles.row}>
-        {busy ? <ActivityIndicator size="small" color={fills.fg} /> : icon ? <Text style={{ color: fills.fg }}>{icon}</Text> : null}
+        {busy ? <ActivityIndicator size="small" color={fills.fg} /> : icon ? <Icon name={icon} colour={fills.fg} /> : null}
         <Text weight="semibold" style={{ color: fills.fg }}>
           {label}
         </Text>

@@ -1,6 +1,7 @@
 import { Pressable, View } from 'react-native';
 import { useTheme } from '../theme/use-theme';
 import { Text } from './text';
+import { Icon } from './icon';
 
 /** A row of mutually exclusive options (role pickers, filters); each at least 44 px tall. */
 export function Choice<T extends string>({ label, options, value, onChange }: { label: string; options: readonly { value: T; label: string }[]; value: T; onChange: (v: T) => void }) {
@@ -29,10 +30,12 @@ export function Choice<T extends string>({ label, options, value, onChange }: { 
                 backgroundColor: selected ? t.colour.tide : t.colour.card,
               }}
             >
-              <Text weight={selected ? 'semibold' : 'regular'} style={{ color: selected ? t.colour.tideInk : t.colour.ink }}>
-                {selected ? '✓ ' : ''}
-                {o.label}
-              </Text>
+              <View style={{ flexDirection: 'row', alignItems: 'center', gap: t.space.xs }}>
+                {selected ? <Icon name="check" size={14} colour={t.colour.tideInk} /> : null}
+                <Text weight={selected ? 'semibold' : 'regular'} style={{ color: selected ? t.colour.tideInk : t.colour.ink }}>
+                  {o.label}
+                </Text>
+              </View>
             </Pressable>
           );
         })}

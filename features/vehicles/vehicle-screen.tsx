@@ -38,8 +38,8 @@ function Visit({ v, n, titles }: { v: VehicleVisit; n: number; titles: Map<numbe
           <CodeChip key={c} code={c} />
         ))}
         <Badge label={statusWords[v.status]} />
-        {v.confirmed ? <Badge label="Fix confirmed" symbol="✓" tone="moss" /> : <Badge label="Not confirmed" symbol="○" tone="slate" />}
-        {v.comebackOf ? <Badge label="Comeback" symbol="↻" tone="brick" /> : null}
+        {v.confirmed ? <Badge label="Fix confirmed" symbol="check" tone="moss" /> : <Badge label="Not confirmed" symbol="open" tone="slate" />}
+        {v.comebackOf ? <Badge label="Comeback" symbol="comeback" tone="brick" /> : null}
       </Row>
       {v.comebackOf ? (
         <Text variant="small">

@@ -21,7 +21,7 @@ function VehicleRow({ v }: { v: VehicleSummary }) {
           <Text weight="semibold" variant="lead">
             {vehicleName(v)}
           </Text>
-          {v.comebacks > 0 ? <Badge label={plural(v.comebacks, 'comeback')} symbol="↻" tone="brick" /> : null}
+          {v.comebacks > 0 ? <Badge label={plural(v.comebacks, 'comeback')} symbol="comeback" tone="brick" /> : null}
         </Row>
         <Text mono variant="small" tone="slate">
           {v.vin}

@@ -1,6 +1,7 @@
 import type { ColourName } from '../theme/tokens';
 import type { WalkStep } from '../../shared/schemas/walks';
 import type { System } from '../../shared/walk';
+import type { IconName } from '../ui/icon';
 
 export const SYSTEM_LABELS: Record<System, string> = {
   fuel: 'Fuel', ignition: 'Ignition', induction: 'Air and induction', mechanical: 'Mechanical', electrical: 'Electrical',
@@ -9,11 +10,11 @@ export const SYSTEM_LABELS: Record<System, string> = {
 };
 
 /** A step's state as word + symbol + tone, so it never rests on colour alone. */
-export function stepStatus(step: Pick<WalkStep, 'state' | 'outcome'>): { label: string; symbol: string; tone: ColourName } {
-  if (step.state === 'ruled_out') return { label: 'Ruled out', symbol: '⊘', tone: 'slate' };
-  if (step.state === 'tested' && step.outcome === 'fault_found') return { label: 'Fault found', symbol: '★', tone: 'moss' };
-  if (step.state === 'tested') return { label: 'Tested, no fault', symbol: '✓', tone: 'slate' };
-  return { label: 'Open', symbol: '○', tone: 'tide' };
+export function stepStatus(step: Pick<WalkStep, 'state' | 'outcome'>): { label: string; symbol: IconName; tone: ColourName } {
+  if (step.state === 'ruled_out') return { label: 'Ruled out', symbol: 'ruledOut', tone: 'slate' };
+  if (step.state === 'tested' && step.outcome === 'fault_found') return { label: 'Fault found', symbol: 'found', tone: 'moss' };
+  if (step.state === 'tested') return { label: 'Tested, no fault', symbol: 'check', tone: 'slate' };
+  return { label: 'Open', symbol: 'open', tone: 'tide' };
 }
 
 export const percent = (p: number) => (p > 0 && p < 0.005 ? '<1%' : `${Math.round(p * 100)}%`);

@@ -75,7 +75,7 @@ export function NewWalkScreen() {
   };
 
   return (
-    <Screen width="reading" footer={<Button grow label="Start the walk" icon="➜" onPress={submit} busy={busy} />}>
+    <Screen width="reading" footer={<Button grow label="Start the walk" icon="walk" onPress={submit} busy={busy} />}>
       <Heading>New cause walk</Heading>
       <Text tone="slate">Give what the car shows. Causeway picks the cause tree, ranks the likely causes with the shop’s confirmed fixes and puts quick, likely tests first.</Text>
       {error ? <Notice tone="error">{[error.message, ...Object.entries(error.fields).map(([k, v]) => `${k}: ${v}`)].join(' ')}</Notice> : null}
@@ -103,7 +103,7 @@ export function NewWalkScreen() {
           <Row wrap>
             {CONTEXT_TAGS.map((tag) => {
               const on = context.includes(tag);
-              return <Button key={tag} compact kind={on ? 'primary' : 'secondary'} icon={on ? '✓' : undefined} label={CONTEXT_LABELS[tag]} aria-pressed={on} onPress={() => toggleContext(tag)} />;
+              return <Button key={tag} compact kind={on ? 'primary' : 'secondary'} icon={on ? 'check' : undefined} label={CONTEXT_LABELS[tag]} aria-pressed={on} onPress={() => toggleContext(tag)} />;
             })}
           </Row>
         </View>

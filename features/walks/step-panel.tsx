@@ -13,6 +13,7 @@ import { Card, Row } from '../ui/surfaces';
 import { Heading, Text } from '../ui/text';
 import { TextField } from '../ui/text-field';
 import { minutes, percent, stepStatus, SYSTEM_LABELS } from './labels';
+import { Icon } from '../ui/icon';
 
 function unitsLike(unit: Unit): Unit[] {
   return UNITS.filter((u) => quantityOf(u) === quantityOf(unit));
@@ -93,9 +94,9 @@ function Record({ step, onMark, busy }: { step: WalkStep; onMark: (m: StepMarkIn
       <TextField label={ruling ? 'Reason for ruling it out (required)' : 'Note (optional)'} value={note} onChangeText={setNote} multiline style={{ minHeight: 72 }} placeholder={ruling ? 'Why it cannot be this cause' : 'What you saw'} />
       {problem ? <Notice tone="error">{problem}</Notice> : null}
       <Row wrap>
-        <Button label="Fault found" icon="★" onPress={() => tested('fault_found')} busy={busy} grow />
-        <Button label="No fault" icon="✓" kind="secondary" onPress={() => tested('no_fault')} disabled={busy} grow />
-        <Button label={ruling ? 'Rule out with this reason' : 'Rule out'} icon="⊘" kind="quiet" onPress={ruleOut} disabled={busy} />
+        <Button label="Fault found" icon="found" onPress={() => tested('fault_found')} busy={busy} grow />
+        <Button label="No fault" icon="check" kind="secondary" onPress={() => tested('no_fault')} disabled={busy} grow />
+        <Button label={ruling ? 'Rule out with this reason' : 'Rule out'} icon="ruledOut" kind="quiet" onPress={ruleOut} disabled={busy} />
       </Row>
     </View>
   );
@@ -108,7 +109,7 @@ function Result({ step }: { step: WalkStep }) {
       {step.measurement ? (
         <Text>
           Reading: <Text mono>{formatReading(step.measurement.value, step.measurement.unit)}</Text>
-          {step.verdict ? ` — ${step.verdict.verdict === 'in' ? '✓ in spec' : '✕ out of spec'}: ${step.verdict.reason}` : ''}
+          {step.verdict ? ` — ${step.verdict.verdict === 'in' ? 'in spec' : 'OUT of spec'}: ${step.verdict.reason}` : ''}
         </Text>
       ) : null}
       {step.note ? <Text>{step.state === 'ruled_out' ? 'Reason' : 'Note'}: {step.note}</Text> : null}
@@ -171,14 +172,17 @@ export function StepPanel({
         <Section title="Confirmed fixes in this shop">
           {step.evidence.map((c) => (
             <Link key={String(c.caseId)} href={`/cases/${c.caseId}` as Href} style={{ color: t.colour.tide, minHeight: t.layout.touchTarget, paddingVertical: t.space.sm }}>
-              <Text tone="tide">↗ {c.title}</Text>
+              <Row style={{ gap: t.space.xs }}>
+                <Icon name="link" size={14} tone="tide" />
+                <Text tone="tide" style={{ flexShrink: 1 }}>{c.title}</Text>
+              </Row>
             </Link>
           ))}
         </Section>
       ) : null}
       {step.state !== 'open' ? <Result step={step} /> : null}
       {!readOnly && step.state === 'open' && !walkFinished ? <Record step={step} onMark={onMark} busy={busy} /> : null}
-      {canReopen ? <Button label="Reopen" icon="↺" kind="secondary" onPress={() => onMark({ state: 'open' })} disabled={busy} /> : null}
+      {canReopen ? <Button label="Reopen" icon="recent" kind="secondary" onPress={() => onMark({ state: 'open' })} disabled={busy} /> : null}
     </Card>
   );
 }

@@ -162,9 +162,9 @@ function Finished({ walk, readOnly }: { walk: WalkResponse; readOnly: boolean })
       <Text>Write it up so the next tech finds it: a draft case with the codes, the steps you did with their readings and the confirmed cause. You add the story and the fix.</Text>
       {error ? <Notice tone="error">{error}</Notice> : null}
       {readOnly ? null : walk.caseId ? (
-        <Button label="Open the write-up" icon="✎" onPress={() => router.push(`/cases/${walk.caseId}/edit` as Href)} />
+        <Button label="Open the write-up" icon="edit" onPress={() => router.push(`/cases/${walk.caseId}/edit` as Href)} />
       ) : (
-        <Button label="Write up" icon="✎" onPress={go} busy={busy} />
+        <Button label="Write up" icon="edit" onPress={go} busy={busy} />
       )}
     </Card>
   );
@@ -216,7 +216,7 @@ function WalkBody({ id }: { id: number }) {
     <View style={{ gap: t.space.sm }}>
       <Row wrap style={{ justifyContent: 'space-between' }}>
         <Heading>{walk.treeTitle}</Heading>
-        <Badge label={finished ? 'Finished' : 'Open'} symbol={finished ? '★' : '○'} tone={finished ? 'moss' : 'tide'} />
+        <Badge label={finished ? 'Finished' : 'Open'} symbol={finished ? 'found' : 'open'} tone={finished ? 'moss' : 'tide'} />
       </Row>
       <EvidenceLine walk={walk} />
       {readOnly ? <Notice tone="info">{`You are looking over ${walk.owner.name}'s walk. Only they can mark its steps.`}</Notice> : null}

@@ -23,7 +23,7 @@ function WalkCard({ walk, showOwner }: { walk: WalkSummary; showOwner: boolean }
           <Text serif weight="semibold" variant="lead" style={{ flexShrink: 1 }}>
             {walk.treeTitle}
           </Text>
-          <Badge label={finished ? 'Finished' : 'Open'} symbol={finished ? '★' : '○'} tone={finished ? 'moss' : 'tide'} />
+          <Badge label={finished ? 'Finished' : 'Open'} symbol={finished ? 'found' : 'open'} tone={finished ? 'moss' : 'tide'} />
         </Row>
         {walk.codes.length ? (
           <Row wrap>
@@ -57,10 +57,10 @@ export function WalksScreen() {
   const shop = useShopWalks(senior);
   const start = () => router.push('/walks/new' as Href);
   return (
-    <Screen footer={isWide ? undefined : <Button grow label="New walk" icon="➜" onPress={start} />}>
+    <Screen footer={isWide ? undefined : <Button grow label="New walk" icon="walk" onPress={start} />}>
       <Row wrap style={{ justifyContent: 'space-between' }}>
         <Heading>Walks</Heading>
-        {isWide ? <Button label="New walk" icon="➜" onPress={start} /> : null}
+        {isWide ? <Button label="New walk" icon="walk" onPress={start} /> : null}
       </Row>
       <Text tone="slate">Ranked causes to test, step by step. Open walks come first; they carry on where you left them, on any device.</Text>
       <Heading level={2}>My walks</Heading>
