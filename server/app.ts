@@ -18,6 +18,7 @@ import { errorHandler, notFoundHandler } from './http/errors';
 import { safeLogger } from './http/safe-log';
 import { healthRoutes } from './health/routes';
 import { outboxRoutes } from './mail/outbox';
+import { rejectMalformedPath, repairingReviver } from './http/text-edge';
 import { patternRoutes } from './patterns/routes';
 import { vehicleRoutes } from './vehicles/routes';
 import { homeRoutes } from './home/routes';
@@ -103,7 +104,8 @@ export function createApp({ ctx, pool, sessionSecret }: AppOptions): CausewayApp
   app.use(helmet({ contentSecurityPolicy: ctx.config.webDevServer ? devContentSecurityPolicy : contentSecurityPolicy, crossOriginEmbedderPolicy: false }));
   // API answers are compressed on the fly; the web app's files were compressed at build time.
   app.use('/api', compression());
-  app.use('/api', express.json({ limit: ctx.config.limits.jsonBody, strict: true }));
+  app.use('/api', rejectMalformedPath);
+  app.use('/api', express.json({ limit: ctx.config.limits.jsonBody, strict: true, reviver: repairingReviver }));
   const sessionStore = installSessions(app, ctx, pool, sessionSecret);
   app.use('/api', (req, res, next) => {
     res.setHeader('Cache-Control', 'no-store');

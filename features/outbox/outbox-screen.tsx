@@ -40,7 +40,7 @@ export function OutboxScreen() {
         <Heading>Outbox</Heading>
         <Button compact kind="secondary" label="Refresh" onPress={() => void mutate()} />
       </Row>
-      <Text tone="slate">In demo mode no e-mail leaves this machine: invites, resets, review requests and digests land here.</Text>
+      <Text tone="slate">In demo mode no e-mail leaves this machine: invites, resets, review requests and digests land here. Their one-time links are left out: a link would sign in as the person it was sent to.</Text>
       <Loaded data={data} error={error} retry={() => void mutate()}>
         {({ messages, notice }) =>
           notice ? (

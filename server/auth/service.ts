@@ -8,7 +8,7 @@ import { HttpError } from '../http/errors';
 import { accountExistsMail, confirmSignupMail, resetMail } from '../mail/templates';
 import { dummyVerify, hashPassword, verifyPassword } from './passwords';
 import type { SessionUser } from './session-user';
-import { consumeToken, issueToken } from './tokens';
+import { consumeToken, issueToken, revokeTokensOf } from './tokens';
 
 // One answer for a wrong password, an unknown e-mail, a disabled account and a paused one, so
 // sign-in tells nobody which addresses have accounts.
@@ -134,6 +134,7 @@ export async function setPasswordWithToken(db: Db, token: string, password: stri
     .update(users)
     .set({ passwordHash, passwordChangedAt: new Date(), failedLogins: 0, lockedUntil: null })
     .where(eq(users.id, used.userId));
+  await revokeTokensOf(db, used.userId);
   await endSessionsOf(db, used.userId);
   return used;
 }

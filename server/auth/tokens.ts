@@ -2,7 +2,7 @@
 // only its SHA-256 is stored, so a database dump does not hand out working links.
 import { createHash, randomBytes } from 'node:crypto';
 import { and, eq, gt, isNull } from 'drizzle-orm';
-import type { Db } from '../../db/client';
+import { transaction, type Db } from '../../db/client';
 import { authTokens } from '../../db/schema';
 
 export type TokenPurpose = 'invite' | 'reset';
@@ -11,11 +11,23 @@ export const TOKEN_LIFETIME_MINUTES: Record<TokenPurpose, number> = { invite: 72
 
 const sha256 = (s: string) => createHash('sha256').update(s).digest('hex');
 
+/** Issues a new link and kills the user's earlier unused links of the same purpose (only the newest mail works). */
 export async function issueToken(db: Db, userId: number, purpose: TokenPurpose): Promise<string> {
   const token = randomBytes(32).toString('base64url');
   const expiresAt = new Date(Date.now() + TOKEN_LIFETIME_MINUTES[purpose] * 60_000);
-  await db.insert(authTokens).values({ userId, purpose, tokenHash: sha256(token), expiresAt });
+  await transaction(db, async (tx) => {
+    await tx
+      .update(authTokens)
+      .set({ usedAt: new Date() })
+      .where(and(eq(authTokens.userId, userId), eq(authTokens.purpose, purpose), isNull(authTokens.usedAt)));
+    await tx.insert(authTokens).values({ userId, purpose, tokenHash: sha256(token), expiresAt });
+  });
   return token;
+}
+
+/** Kills every unused link of a user, whatever its purpose (after a password change). */
+export async function revokeTokensOf(db: Db, userId: number) {
+  await db.update(authTokens).set({ usedAt: new Date() }).where(and(eq(authTokens.userId, userId), isNull(authTokens.usedAt)));
 }
 
 /** Marks the token used and returns its user, or null when unknown, used or expired. */

@@ -32,10 +32,13 @@ export function sniffType(buf: Buffer, name: string): string | null {
   return null;
 }
 
-/** A display name without folders, control characters or anything a header could choke on. */
+/** C0 and C1 controls, and the bidirectional marks, embeddings, overrides and isolates that can make "x\u202Egnp.exe" read as "xexe.png". */
+const UNSAFE_IN_NAME = /[\u0000-\u001f\u007f-\u009f\u061c\u200e\u200f\u202a-\u202e\u2066-\u2069\ufeff"<>|:*?]/g;
+
+/** A display name without folders, control or bidirectional characters, or anything a header could choke on. */
 export function safeFileName(original: string): string {
   const base = original.split(/[\\/]/).pop() ?? '';
-  const clean = base.replace(/[\u0000-\u001f\u007f"<>|:*?]/g, '').replace(/^\.+/, '').trim().slice(0, 150);
+  const clean = base.replace(UNSAFE_IN_NAME, '').replace(/^\.+/, '').trim().slice(0, 150);
   return clean || 'file';
 }
 

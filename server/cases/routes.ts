@@ -26,7 +26,8 @@ const diffQuerySchema = z.object({ from: z.coerce.number().int().positive(), to:
 const previewSchema = z.strictObject({ body: z.string().max(200_000), codes: z.array(z.string().max(20)).max(40).optional() });
 
 // One file per request, held in memory just long enough to check its bytes.
-const upload = multer({ storage: multer.memoryStorage(), limits: { fileSize: ATTACHMENT_MAX_BYTES, files: 1, fields: 5, parts: 6 } });
+// Browsers send the file name as raw UTF-8; multer would read it as latin1 (🚗 became ð\u009f\u009a\u0097).
+const upload = multer({ storage: multer.memoryStorage(), defParamCharset: 'utf8', limits: { fileSize: ATTACHMENT_MAX_BYTES, files: 1, fields: 5, parts: 6 } });
 
 export function caseRoutes(ctx: AppContext) {
   const r = Router();

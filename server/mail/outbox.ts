@@ -19,6 +19,10 @@ const caughtSchema = z.array(
   }).loose(),
 );
 
+/** A link that carries a token (invite, reset) signs in as its recipient: the Outbox says it was sent, never what it was. */
+const ONE_TIME_LINK = /\S*[?&]token=\S*/gi;
+export const hideOneTimeLinks = (text: string) => text.replace(ONE_TIME_LINK, "(one-time link, only in the recipient's own inbox)");
+
 export async function fetchCaughtMail(ctx: AppContext) {
   const url = `http://${ctx.config.mail.host}:${ctx.config.mail.webPort}/api/email`;
   const res = await fetch(url, { signal: AbortSignal.timeout(3000) }).catch(() => null);
@@ -37,7 +41,7 @@ export function outboxRoutes(ctx: AppContext) {
     if (!caught) return res.json({ messages: [], catcherDown: true, notice: 'The local mail catcher is not answering, so sent mail cannot be shown. Restart with npm start.' });
     const messages = caught
       .filter((m) => m.to.some((t) => ours.has(t.address.toLowerCase())))
-      .map((m) => ({ id: m.id, subject: m.subject, to: m.to.map((t) => t.address), date: m.date ?? m.time ?? null, text: m.text ?? '' }))
+      .map((m) => ({ id: m.id, subject: m.subject, to: m.to.map((t) => t.address), date: m.date ?? m.time ?? null, text: hideOneTimeLinks(m.text ?? '') }))
       .sort((a, b) => String(b.date).localeCompare(String(a.date)));
     res.json({ messages });
   });

@@ -6,7 +6,7 @@ import type { inviteSchema, ShopUser, userPatchSchema } from '../../shared/schem
 import { endSessionsOf, isDuplicate } from '../auth/service';
 import { forgetSessionUser } from '../auth/session';
 import type { SessionUser } from '../auth/session-user';
-import { issueToken } from '../auth/tokens';
+import { issueToken, revokeTokensOf } from '../auth/tokens';
 import type { AppContext } from '../context';
 import { conflict, HttpError, notFound } from '../http/errors';
 import { inviteMail } from '../mail/templates';
@@ -84,7 +84,10 @@ export async function updateUser(ctx: AppContext, manager: SessionUser, userId: 
     await tx.update(users).set(patch).where(and(eq(users.id, userId), eq(users.shopId, manager.shopId)));
   });
   forgetSessionUser(userId);
-  // Roles are re-read on every request; a disabled account must also lose the sessions it has.
-  if (patch.disabled) await endSessionsOf(ctx.db, userId);
+  // Roles are re-read on every request; a disabled account must also lose its sessions and links.
+  if (patch.disabled) {
+    await endSessionsOf(ctx.db, userId);
+    await revokeTokensOf(ctx.db, userId);
+  }
   return getShopUser(ctx, manager.shopId, userId);
 }

@@ -1,6 +1,7 @@
 // Cause walks: start one from the evidence over the best-matching tree, raised by the shop's
 // confirmed fixes on similar cases; mark steps with optimistic concurrency; write one up as a draft case.
 import { and, desc, eq, isNotNull, isNull, sql } from 'drizzle-orm';
+import { transaction, type Db } from '../../db/client';
 import { cases, platforms, users, walks } from '../../db/schema';
 import { platformSimilarity } from '../../shared/platform';
 import { isSeniorOrAbove } from '../../shared/policy';
@@ -25,7 +26,7 @@ import {
 import type { SessionUser } from '../auth/session-user';
 import { createCase } from '../cases/service';
 import type { AppContext } from '../context';
-import { conflict, forbidden, HttpError, notFound } from '../http/errors';
+import { forbidden, HttpError, notFound } from '../http/errors';
 import { treesForShop } from '../trees/service';
 import { buildEvidence, toPlatform, type PlatformRow } from './evidence';
 
@@ -218,21 +219,25 @@ function ownWalk(actor: SessionUser, row: WalkRow) {
   if (row.userId !== actor.id) throw forbidden('This walk belongs to someone else: you can look it over, but only they mark its steps.');
 }
 
-const MAX_ATTEMPTS = 5;
+/** The walk row, locked until the transaction ends: requests on one walk queue up instead of racing. */
+async function lockWalk(tx: Db, shopId: number, id: number): Promise<WalkRow> {
+  const [row] = await tx.select().from(walks).where(and(eq(walks.id, id), eq(walks.shopId, shopId))).for('update');
+  if (!row) throw notFound('That walk');
+  return row;
+}
 
 /**
- * Marks are applied to the walk as it is in the database. Two devices marking at once
- * both succeed: the write is conditional on the row version, and a write that lost the
- * race re-reads the walk and applies its mark again to the newer state (marks on
- * different steps commute; a repeat of the same mark is a no-op).
+ * Marks are applied to the walk as it is in the database. Several devices marking at once
+ * all succeed: the row lock queues them and each applies to the state the one before left
+ * (marks on different steps commute; a repeat of the same mark is a no-op).
  */
 export async function markWalkStep(ctx: AppContext, actor: SessionUser, id: number, stepId: string, mark: StepMarkInput): Promise<WalkResponse> {
-  for (let attempt = 0; attempt < MAX_ATTEMPTS; attempt++) {
-    const { walk: row } = await loadRow(ctx, actor, id);
-    ownWalk(actor, row);
+  ownWalk(actor, (await loadRow(ctx, actor, id)).walk);
+  await transaction(ctx.db, async (tx) => {
+    const row = await lockWalk(tx, actor.shopId, id);
     const current = readState(row);
     const step = current.steps.find((s) => s.id === stepId);
-    if (step && isSameMark(step, mark)) return getWalk(ctx, actor, id);
+    if (step && isSameMark(step, mark)) return;
     let next: Walk;
     try {
       next = markStep(current, stepId, mark);
@@ -240,13 +245,12 @@ export async function markWalkStep(ctx: AppContext, actor: SessionUser, id: numb
       if (error instanceof WalkError) throw toHttp(error);
       throw error;
     }
-    const [result] = await ctx.db
+    await tx
       .update(walks)
       .set({ state: next as unknown as Record<string, unknown>, status: next.status, version: row.version + 1, updatedAt: new Date() })
-      .where(and(eq(walks.id, id), eq(walks.shopId, actor.shopId), eq(walks.version, row.version)));
-    if (result.affectedRows === 1) return getWalk(ctx, actor, id);
-  }
-  throw conflict('This walk is being marked from another device at the same moment. Reload it and mark again.');
+      .where(eq(walks.id, id));
+  });
+  return getWalk(ctx, actor, id);
 }
 
 // ---- writing up ----
@@ -258,30 +262,35 @@ function writeUpTitle(walk: Walk, ev: WalkEvidence, platform: WalkResponse['plat
   return title.length > 200 ? `${title.slice(0, 197)}...` : title;
 }
 
-/** A draft case from a finished walk; a second call returns the case already written. */
+/**
+ * A draft case from a finished walk; later calls return the case already written. The row lock
+ * makes parallel write-ups (a double tap, an offline replay) wait for the first, which links its case.
+ */
 export async function writeUpWalk(ctx: AppContext, actor: SessionUser, id: number): Promise<{ caseId: number; created: boolean }> {
-  const { walk: row, platform } = await loadRow(ctx, actor, id);
-  ownWalk(actor, row);
-  if (row.caseId) return { caseId: row.caseId, created: false };
-  const walk = readState(row);
-  const confirmed = walk.steps.find((s) => s.id === walk.confirmedStepId);
-  if (walk.status !== 'finished' || !confirmed) {
-    throw new HttpError(409, 'walk_open', 'Finish the walk first: mark the step where you found the fault as "Fault found".');
-  }
-  const { evidence } = row.evidence as unknown as StoredEvidence;
-  const input: CaseCreate = {
-    title: writeUpTitle(walk, evidence, platform?.id ? platform : null),
-    body: buildWriteUp(walk, evidence),
-    platformId: row.platformId ?? null,
-    codes: evidence.codes,
-    symptoms: evidence.symptoms.filter((s) => s.length >= 2).slice(0, 30),
-    context: evidence.context.filter((s) => s.length >= 2).slice(0, 10),
-    rootCause: confirmed.title,
-    cause: confirmed.cause,
-    status: 'draft',
-  };
-  const created = await createCase(ctx, actor, input);
-  // Only the first write-up links; a racing second one keeps its own draft but not the link.
-  await ctx.db.update(walks).set({ caseId: created.id }).where(and(eq(walks.id, id), isNull(walks.caseId)));
-  return { caseId: created.id, created: true };
+  const { walk: seen, platform } = await loadRow(ctx, actor, id);
+  ownWalk(actor, seen);
+  return transaction(ctx.db, async (tx) => {
+    const row = await lockWalk(tx, actor.shopId, id);
+    if (row.caseId) return { caseId: row.caseId, created: false };
+    const walk = readState(row);
+    const confirmed = walk.steps.find((s) => s.id === walk.confirmedStepId);
+    if (walk.status !== 'finished' || !confirmed) {
+      throw new HttpError(409, 'walk_open', 'Finish the walk first: mark the step where you found the fault as "Fault found".');
+    }
+    const { evidence } = row.evidence as unknown as StoredEvidence;
+    const input: CaseCreate = {
+      title: writeUpTitle(walk, evidence, platform?.id ? platform : null),
+      body: buildWriteUp(walk, evidence),
+      platformId: row.platformId ?? null,
+      codes: evidence.codes,
+      symptoms: evidence.symptoms.filter((s) => s.length >= 2).slice(0, 30),
+      context: evidence.context.filter((s) => s.length >= 2).slice(0, 10),
+      rootCause: confirmed.title,
+      cause: confirmed.cause,
+      status: 'draft',
+    };
+    const created = await createCase({ ...ctx, db: tx }, actor, input);
+    await tx.update(walks).set({ caseId: created.id }).where(eq(walks.id, id));
+    return { caseId: created.id, created: true };
+  });
 }

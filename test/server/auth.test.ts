@@ -246,6 +246,30 @@ describe('invites and password resets through the mail catcher', () => {
     await signedIn(t.app, shop.people.apprentice.email, 'reset password value');
   });
 
+  it('kills a superseded reset link, and every link of the user once the password changed (outside test, finding 6)', async () => {
+    const person = (await seedShop(t.ctx, 'Reset Twice Bay', ['technician'])).people.technician;
+    const anon = await agentFor(t.app);
+    const resetLink = async () => {
+      const before = (await mailTo(person.email, { timeoutMs: 0, subject: /Reset/ })).length;
+      await anon.agent.post('/api/auth/reset-request').set('X-CSRF-Token', anon.csrf).send({ email: person.email }).expect(202);
+      for (let i = 0; i < 50 && (await mailTo(person.email, { timeoutMs: 0, subject: /Reset/ })).length === before; i++) await new Promise((r) => setTimeout(r, 100));
+      return tokenFromMail(person.email, /Reset/);
+    };
+    const reset = (token: string, password: string) => anon.agent.post('/api/auth/reset').set('X-CSRF-Token', anon.csrf).send({ token, password });
+    const older = await resetLink();
+    const newer = await resetLink();
+    expect(newer).not.toBe(older);
+    // the newer link supersedes the older one at once
+    expect((await reset(older, 'older link password')).body.error.code).toBe('bad_token');
+    const third = await resetLink();
+    const fourth = await resetLink();
+    // using one link kills every other link of the user, older or newer
+    await reset(fourth, 'fourth link password').expect(200);
+    expect((await reset(third, 'third link password')).status).toBe(400);
+    expect((await reset(newer, 'newer link password')).status).toBe(400);
+    await signedIn(t.app, person.email, 'fourth link password');
+  });
+
   it('refuses a made-up token', async () => {
     const anon = await agentFor(t.app);
     const res = await anon.agent.post('/api/auth/reset').set('X-CSRF-Token', anon.csrf).send({ token: 'x'.repeat(43), password: 'whatever password' });

@@ -7,6 +7,7 @@ import { caseRevisions, platforms, users } from '../../db/schema';
 import { parseCaseFile } from '../../server/cases/case-file';
 import { importCaseFolder } from '../../server/cases/import-export';
 import { extractFromNote } from '../../server/cases/markdown';
+import { safeFileName } from '../../server/cases/attachments';
 import { createTestApp, seedShop, signedIn, type TestApp } from '../support/test-app';
 import { mailTo } from '../support/mail';
 
@@ -243,6 +244,24 @@ describe('attachments', () => {
     expect(file.headers['content-disposition']).toMatch(/^inline/);
     expect(file.headers['content-security-policy']).toContain('sandbox');
     await as.outsider!.agent.get(res.body.url).expect(404);
+  });
+
+  it('keeps a non-ASCII file name as UTF-8 and strips control and bidirectional characters (outside test, finding 11)', async () => {
+    const { id } = await newCase(as.technician!);
+    const upload = (name: string) => as.technician!.agent.post(`/api/cases/${id}/attachments`).set('X-CSRF-Token', as.technician!.csrf).attach('file', png, name);
+    const emoji = await upload('🚗🔧.png');
+    expect(emoji.status).toBe(201);
+    expect(emoji.body.name).toBe('🚗🔧.png');
+    const served = await as.technician!.agent.get(emoji.body.url).expect(200);
+    expect(served.headers['content-disposition']).toContain(`filename*=UTF-8''${encodeURIComponent('🚗🔧.png')}`);
+    expect((await upload('Zündspule Ø.png')).body.name).toBe('Zündspule Ø.png');
+    // a right-to-left override would show "invoice.exe.png" as "invoicegnp.exe"; C0, C1 and bidi marks go
+    expect((await upload('invoice\u202Egnp.exe.png')).body.name).toBe('invoicegnp.exe.png');
+    // (a raw C0 control in the part header is refused by the multipart parser already: see safeFileName below)
+    const marks = await upload('ab\u0085c\u200Fd\u2066e\u2069\u061C\uFEFF.png');
+    expect(marks.status, JSON.stringify(marks.body)).toBe(201);
+    expect(marks.body.name).toBe('abcde.png');
+    expect(safeFileName('a\u0007b\u001bc\u007f.png')).toBe('abc.png');
   });
 
   it('refuses a disguised executable renamed .jpg (checked by magic bytes)', async () => {
