@@ -1,4 +1,6 @@
+import { readFileSync } from 'node:fs';
 import path from 'node:path';
+import { sql } from 'drizzle-orm';
 import { drizzle, type MySql2Database } from 'drizzle-orm/mysql2';
 import { migrate } from 'drizzle-orm/mysql2/migrator';
 import mysql from 'mysql2/promise';
@@ -30,6 +32,20 @@ const migrationsFolder = path.join(import.meta.dirname, 'migrations');
 
 export async function applyMigrations(db: Db) {
   await migrate(db, { migrationsFolder });
+}
+
+/** The migrations this build carries that the database has not applied yet (their tags). */
+export async function pendingMigrations(db: Db): Promise<string[]> {
+  const journal = JSON.parse(readFileSync(path.join(migrationsFolder, 'meta', '_journal.json'), 'utf8')) as { entries: { tag: string; when: number }[] };
+  let applied = 0;
+  try {
+    const [rows] = (await db.execute(sql`SELECT COUNT(*) AS n FROM __drizzle_migrations`)) as unknown as [{ n: number }[]];
+    applied = Number(rows[0]?.n ?? 0);
+  } catch (err) {
+    const e = err as { code?: string; cause?: { code?: string } };
+    if ((e.cause?.code ?? e.code) !== 'ER_NO_SUCH_TABLE') throw err;
+  }
+  return journal.entries.slice(applied).map((e) => e.tag);
 }
 
 let writes = 0;
