@@ -30,8 +30,26 @@ export function connect(dbConfig: Config['db'], options: { connectionLimit?: num
 
 const migrationsFolder = path.join(import.meta.dirname, 'migrations');
 
-export async function applyMigrations(db: Db) {
-  await migrate(db, { migrationsFolder });
+/** SQL giving the named lock of the connected database (lock names are server-wide, at most 64 characters). */
+export const MIGRATION_LOCK_NAME_SQL = "CONCAT('causeway-migrate-', MD5(DATABASE()))";
+
+/**
+ * Applies pending migrations while holding a MariaDB named lock, so instances that start
+ * together run them one after the other: the second finds them applied and does nothing.
+ * The lock lives on one pooled connection for the whole run; the migrations use another.
+ */
+export async function applyMigrations(db: Db, { waitSeconds = 300 } = {}) {
+  const pool = (db as unknown as { $client: mysql.Pool }).$client; // set by drizzle(pool) in connect()
+  const lockHolder = await pool.getConnection();
+  const lockName = await lockHolder.query<mysql.RowDataPacket[]>(`SELECT ${MIGRATION_LOCK_NAME_SQL} AS name`).then(([rows]) => String(rows[0]!.name));
+  try {
+    const [rows] = await lockHolder.query<mysql.RowDataPacket[]>('SELECT GET_LOCK(?, ?) AS got', [lockName, waitSeconds]);
+    if (Number(rows[0]?.got) !== 1) throw new Error(`Another process held the migration lock for more than ${waitSeconds} s; is a migration stuck?`);
+    await migrate(db, { migrationsFolder });
+  } finally {
+    await lockHolder.query('DO RELEASE_LOCK(?)', [lockName]).catch(() => undefined);
+    lockHolder.release();
+  }
 }
 
 /** The migrations this build carries that the database has not applied yet (their tags). */

@@ -12,7 +12,7 @@ import { PRODUCTION_REQUIRED } from '../../server/config';
 import { searchResponseSchema } from '../../shared/schemas/search';
 import { buildWebIfChanged } from '../../server/cli/web-build';
 import { loadDemoData } from '../../server/seed/demo';
-import { compileServer, runCompiled, startCompiledServer } from '../support/compiled-server';
+import { compileServer, operatorSettings, productionEnv, runCompiled, startCompiledServer } from '../support/compiled-server';
 import { testConfig } from '../support/env';
 import { TEST_PASSWORD } from '../support/test-app';
 
@@ -21,15 +21,6 @@ const dbName = `cw_test_prod_${randomBytes(4).toString('hex')}`;
 let build: Awaited<ReturnType<typeof compileServer>>;
 let admin: mysql.Connection;
 const operator = { email: 'operator@prod-start.test' };
-
-/** The environment an operator would give, minus the four safety settings unless added. */
-function productionEnv(extra: Record<string, string> = {}): NodeJS.ProcessEnv {
-  const env: NodeJS.ProcessEnv = { ...process.env, NODE_ENV: 'production', PORT: '0', LOG_LEVEL: 'warn', DB_NAME: dbName, SMTP_PORT: String(config.mail.port), ...extra };
-  for (const name of Object.keys(PRODUCTION_REQUIRED)) if (!(name in extra)) delete env[name];
-  return env;
-}
-
-const operatorSettings = { DEMO_MODE: 'false', DB_PASSWORD: config.db.password, SESSION_SECRET: randomBytes(32).toString('hex'), COOKIE_SECURE: 'false' };
 
 beforeAll(async () => {
   buildWebIfChanged(config.root); // npm run build's second half; a no-op when dist/ is current
@@ -46,13 +37,13 @@ afterAll(async () => {
 
 describe('production start', () => {
   it('refuses to start with demo defaults, naming every unset safety variable', async () => {
-    const run = await runCompiled(build.dir, 'server/cli/serve.js', [], productionEnv());
+    const run = await runCompiled(build.dir, 'server/cli/serve.js', [], productionEnv(dbName));
     expect(run.code).toBe(1);
     for (const name of Object.keys(PRODUCTION_REQUIRED)) expect(run.stderr).toContain(`${name} is not set`);
   });
 
   it('names only the variables still unset, and accepts a value set explicitly even when it equals the default', async () => {
-    const run = await runCompiled(build.dir, 'server/cli/serve.js', [], productionEnv({ DB_PASSWORD: config.db.password, COOKIE_SECURE: 'false' }));
+    const run = await runCompiled(build.dir, 'server/cli/serve.js', [], productionEnv(dbName, { DB_PASSWORD: config.db.password, COOKIE_SECURE: 'false' }));
     expect(run.code).toBe(1);
     expect(run.stderr).toContain('DEMO_MODE is not set');
     expect(run.stderr).toContain('SESSION_SECRET is not set');
@@ -61,10 +52,10 @@ describe('production start', () => {
   });
 
   it('does not migrate in production: refuses an empty database until the migrate step has run', async () => {
-    const refused = await runCompiled(build.dir, 'server/cli/serve.js', [], productionEnv(operatorSettings));
+    const refused = await runCompiled(build.dir, 'server/cli/serve.js', [], productionEnv(dbName, operatorSettings()));
     expect(refused.code).toBe(1);
     expect(refused.stderr).toMatch(/missing \d+ migration\(s\).*db:migrate/);
-    const migrated = await runCompiled(build.dir, 'server/cli/db.js', ['migrate'], productionEnv(operatorSettings));
+    const migrated = await runCompiled(build.dir, 'server/cli/db.js', ['migrate'], productionEnv(dbName, operatorSettings()));
     expect(migrated.code, migrated.stderr).toBe(0);
     const database = connect({ ...config.db, database: dbName });
     const [shop] = await database.db.insert(shops).values({ name: 'Operator Garage' }).$returningId();
@@ -73,7 +64,7 @@ describe('production start', () => {
   });
 
   it('serves the API, the compiled search worker and the prebuilt web app', async () => {
-    const server = await startCompiledServer(build.dir, productionEnv(operatorSettings));
+    const server = await startCompiledServer(build.dir, productionEnv(dbName, operatorSettings()));
     try {
       const health = await fetch(`${server.url}/api/health`).then((r) => r.json());
       expect(health).toMatchObject({ ok: true, db: 'up' });
@@ -99,7 +90,7 @@ describe('production start', () => {
     const database = connect({ ...config.db, database: dbName });
     await loadDemoData(database.db, config.root);
     await database.close();
-    const run = await runCompiled(build.dir, 'server/cli/serve.js', [], productionEnv(operatorSettings));
+    const run = await runCompiled(build.dir, 'server/cli/serve.js', [], productionEnv(dbName, operatorSettings()));
     expect(run.code).toBe(1);
     expect(run.stderr).toMatch(/still have the published demo password: \S+@/);
   });

@@ -3,6 +3,8 @@ import { randomBytes } from 'node:crypto';
 import { rmSync } from 'node:fs';
 import path from 'node:path';
 import { buildServer } from '../../server/cli/build';
+import { PRODUCTION_REQUIRED } from '../../server/config';
+import { testConfig } from './env';
 import { startProcess, type Started } from './processes';
 
 const root = path.resolve(import.meta.dirname, '../..');
@@ -12,6 +14,19 @@ export async function compileServer(): Promise<{ dir: string; remove(): void }> 
   const dir = path.join(root, '.data', `test-build-${process.pid}-${randomBytes(3).toString('hex')}`);
   await buildServer(root, dir);
   return { dir, remove: () => rmSync(dir, { recursive: true, force: true }) };
+}
+
+/** The environment an operator would give, without the four safety settings unless `extra` has them. */
+export function productionEnv(database: string, extra: Record<string, string> = {}): NodeJS.ProcessEnv {
+  const config = testConfig();
+  const env: NodeJS.ProcessEnv = { ...process.env, NODE_ENV: 'production', PORT: '0', LOG_LEVEL: 'warn', DB_NAME: database, SMTP_PORT: String(config.mail.port), ...extra };
+  for (const name of Object.keys(PRODUCTION_REQUIRED)) if (!(name in extra)) delete env[name];
+  return env;
+}
+
+/** All four safety settings set explicitly, as an operator would. */
+export function operatorSettings(): Record<string, string> {
+  return { DEMO_MODE: 'false', DB_PASSWORD: testConfig().db.password, SESSION_SECRET: randomBytes(32).toString('hex'), COOKIE_SECURE: 'false' };
 }
 
 export interface RunResult {
