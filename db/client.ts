@@ -4,7 +4,7 @@ import { sql } from 'drizzle-orm';
 import { drizzle, type MySql2Database } from 'drizzle-orm/mysql2';
 import { migrate } from 'drizzle-orm/mysql2/migrator';
 import mysql from 'mysql2/promise';
-import type { Config } from '../server/config';
+import type { DbSettings } from './settings';
 import * as schema from './schema';
 
 export type Db = MySql2Database<typeof schema>;
@@ -15,7 +15,7 @@ export interface Database {
   close(): Promise<void>;
 }
 
-export function connect(dbConfig: Config['db'], options: { connectionLimit?: number } = {}): Database {
+export function connect(dbConfig: DbSettings, options: { connectionLimit?: number } = {}): Database {
   const pool = mysql.createPool({
     ...dbConfig,
     connectionLimit: options.connectionLimit ?? 20,

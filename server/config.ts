@@ -2,6 +2,7 @@
 import { existsSync } from 'node:fs';
 import path from 'node:path';
 import { z } from 'zod';
+import type { DbSettings } from '../db/settings';
 import pkg from '../package.json' with { type: 'json' };
 
 /** The folder holding package.json: the repository, whether this file runs from server/ or build/server/. */
@@ -91,7 +92,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env) {
     webDist: path.join(root, 'dist'),
     /** npm run dev: pages come from Expo's dev server instead of dist/. */
     webDevServer: undefined as string | undefined,
-    db: { host: c.DB_HOST, port: c.DB_PORT, database: c.DB_NAME, user: c.DB_USER, password: c.DB_PASSWORD },
+    db: { host: c.DB_HOST, port: c.DB_PORT, database: c.DB_NAME, user: c.DB_USER, password: c.DB_PASSWORD } satisfies DbSettings,
     session: {
       secret: c.SESSION_SECRET,
       idleMinutes: c.SESSION_IDLE_MINUTES,
