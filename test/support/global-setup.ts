@@ -14,7 +14,11 @@ export default async function setup() {
   return async () => {
     await stopCatcher();
     const alive = survivors();
-    if (alive.length > 0) throw new Error(`Tests left processes running:\n${alive.join('\n')}`);
+    if (alive.length > 0) {
+      // vitest reports a teardown error but still exits 0: set the exit code as well
+      process.exitCode = 1;
+      throw new Error(`Tests left processes running:\n${alive.join('\n')}`);
+    }
     // Leave a server that was already running (e.g. by npm start) alone.
     if (started && process.env.CI) await stopLocalServer(config);
   };
