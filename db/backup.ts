@@ -3,10 +3,10 @@ import { execFileSync } from 'node:child_process';
 import { cpSync, existsSync, mkdirSync, openSync, closeSync, rmSync, writeFileSync, readFileSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import type { Config } from '../server/config';
+import type { BackupSettings } from './settings';
 import { adminSql, localServerPaths } from './local-server';
 
-const client = (config: Config) => ['--no-defaults', `--socket=${localServerPaths(config).socket}`, `--user=${os.userInfo().username}`];
+const client = (config: BackupSettings) => ['--no-defaults', `--socket=${localServerPaths(config).socket}`, `--user=${os.userInfo().username}`];
 
 export interface BackupManifest {
   database: string;
@@ -15,7 +15,7 @@ export interface BackupManifest {
 }
 
 /** Writes <dir>/database.sql, <dir>/uploads/ and <dir>/manifest.json. */
-export function backup(config: Config, dir: string): BackupManifest {
+export function backup(config: BackupSettings, dir: string): BackupManifest {
   mkdirSync(dir, { recursive: true });
   const out = openSync(path.join(dir, 'database.sql'), 'w');
   try {
@@ -32,7 +32,7 @@ export function backup(config: Config, dir: string): BackupManifest {
 }
 
 /** Replaces the database and the attachment files with those of a backup folder. */
-export function restore(config: Config, dir: string): BackupManifest {
+export function restore(config: BackupSettings, dir: string): BackupManifest {
   const manifest = JSON.parse(readFileSync(path.join(dir, 'manifest.json'), 'utf8')) as BackupManifest;
   const db = config.db.database;
   adminSql(config, `DROP DATABASE IF EXISTS \`${db}\`; CREATE DATABASE \`${db}\`;`);

@@ -1,8 +1,10 @@
+import { readFileSync } from 'node:fs';
 import path from 'node:path';
+import { sql } from 'drizzle-orm';
 import { drizzle, type MySql2Database } from 'drizzle-orm/mysql2';
 import { migrate } from 'drizzle-orm/mysql2/migrator';
 import mysql from 'mysql2/promise';
-import type { Config } from '../server/config';
+import type { DbSettings } from './settings';
 import * as schema from './schema';
 
 export type Db = MySql2Database<typeof schema>;
@@ -13,7 +15,7 @@ export interface Database {
   close(): Promise<void>;
 }
 
-export function connect(dbConfig: Config['db'], options: { connectionLimit?: number } = {}): Database {
+export function connect(dbConfig: DbSettings, options: { connectionLimit?: number } = {}): Database {
   const pool = mysql.createPool({
     ...dbConfig,
     connectionLimit: options.connectionLimit ?? 20,
@@ -28,8 +30,40 @@ export function connect(dbConfig: Config['db'], options: { connectionLimit?: num
 
 const migrationsFolder = path.join(import.meta.dirname, 'migrations');
 
-export async function applyMigrations(db: Db) {
-  await migrate(db, { migrationsFolder });
+/** SQL giving the named lock of the connected database (lock names are server-wide, at most 64 characters). */
+export const MIGRATION_LOCK_NAME_SQL = "CONCAT('causeway-migrate-', MD5(DATABASE()))";
+
+/**
+ * Applies pending migrations while holding a MariaDB named lock, so instances that start
+ * together run them one after the other: the second finds them applied and does nothing.
+ * The lock lives on one pooled connection for the whole run; the migrations use another.
+ */
+export async function applyMigrations(db: Db, { waitSeconds = 300 } = {}) {
+  const pool = (db as unknown as { $client: mysql.Pool }).$client; // set by drizzle(pool) in connect()
+  const lockHolder = await pool.getConnection();
+  const lockName = await lockHolder.query<mysql.RowDataPacket[]>(`SELECT ${MIGRATION_LOCK_NAME_SQL} AS name`).then(([rows]) => String(rows[0]!.name));
+  try {
+    const [rows] = await lockHolder.query<mysql.RowDataPacket[]>('SELECT GET_LOCK(?, ?) AS got', [lockName, waitSeconds]);
+    if (Number(rows[0]?.got) !== 1) throw new Error(`Another process held the migration lock for more than ${waitSeconds} s; is a migration stuck?`);
+    await migrate(db, { migrationsFolder });
+  } finally {
+    await lockHolder.query('DO RELEASE_LOCK(?)', [lockName]).catch(() => undefined);
+    lockHolder.release();
+  }
+}
+
+/** The migrations this build carries that the database has not applied yet (their tags). */
+export async function pendingMigrations(db: Db): Promise<string[]> {
+  const journal = JSON.parse(readFileSync(path.join(migrationsFolder, 'meta', '_journal.json'), 'utf8')) as { entries: { tag: string; when: number }[] };
+  let applied = 0;
+  try {
+    const [rows] = (await db.execute(sql`SELECT COUNT(*) AS n FROM __drizzle_migrations`)) as unknown as [{ n: number }[]];
+    applied = Number(rows[0]?.n ?? 0);
+  } catch (err) {
+    const e = err as { code?: string; cause?: { code?: string } };
+    if ((e.cause?.code ?? e.code) !== 'ER_NO_SUCH_TABLE') throw err;
+  }
+  return journal.entries.slice(applied).map((e) => e.tag);
 }
 
 let writes = 0;

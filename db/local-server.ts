@@ -4,7 +4,7 @@ import { execFileSync, spawn } from 'node:child_process';
 import { existsSync, mkdirSync, readFileSync, rmSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import type { Config } from '../server/config';
+import type { LocalDbSettings } from './settings';
 
 export interface LocalServerPaths {
   dataDir: string;
@@ -14,7 +14,7 @@ export interface LocalServerPaths {
   errorLog: string;
 }
 
-export function localServerPaths(config: Config): LocalServerPaths {
+export function localServerPaths(config: LocalDbSettings): LocalServerPaths {
   const runDir = path.join(config.dataDir, 'run');
   return {
     dataDir: path.join(config.dataDir, 'mariadb'),
@@ -73,7 +73,7 @@ function initialise(paths: LocalServerPaths) {
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 
 /** Starts the private server unless it already answers; resolves once it accepts connections. */
-export async function startLocalServer(config: Config): Promise<{ started: boolean }> {
+export async function startLocalServer(config: LocalDbSettings): Promise<{ started: boolean }> {
   const paths = localServerPaths(config);
   mkdirSync(paths.runDir, { recursive: true });
   if (livePid(paths) && ping(paths)) return { started: false };
@@ -111,7 +111,7 @@ export async function startLocalServer(config: Config): Promise<{ started: boole
   throw new Error(`MariaDB did not start on 127.0.0.1:${config.db.port}. Error log:\n${errorLogTail(paths)}`);
 }
 
-export async function stopLocalServer(config: Config): Promise<boolean> {
+export async function stopLocalServer(config: LocalDbSettings): Promise<boolean> {
   const paths = localServerPaths(config);
   const pid = livePid(paths);
   if (!pid) return false;
@@ -121,7 +121,7 @@ export async function stopLocalServer(config: Config): Promise<boolean> {
 }
 
 /** Runs SQL as the socket-authenticated admin that mariadb-install-db created for the OS user. */
-export function adminSql(config: Config, sql: string): string {
+export function adminSql(config: LocalDbSettings, sql: string): string {
   const paths = localServerPaths(config);
   return execFileSync('mariadb', ['--no-defaults', `--socket=${paths.socket}`, `--user=${osUser()}`, '-N', '-e', sql], {
     encoding: 'utf8',
@@ -131,7 +131,7 @@ export function adminSql(config: Config, sql: string): string {
 const quote = (s: string) => `'${s.replace(/\\/g, '\\\\').replace(/'/g, "\\'")}'`;
 
 /** Creates the app database and user; the user may also create and drop cw_test_* databases. */
-export function ensureAppDatabase(config: Config) {
+export function ensureAppDatabase(config: LocalDbSettings) {
   const { database, user, password } = config.db;
   const statements = [`CREATE DATABASE IF NOT EXISTS \`${database}\``];
   for (const host of ['127.0.0.1', 'localhost']) {

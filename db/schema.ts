@@ -79,6 +79,17 @@ export const sessions = mysqlTable(
   (t) => [index('sessions_expires').on(t.expires)],
 );
 
+/** Hit counters of the request limits (sign-in, sign-up, reset), shared by every app instance. */
+export const rateLimits = mysqlTable(
+  'rate_limits',
+  {
+    rateKey: varchar('rate_key', { length: 191 }).primaryKey(),
+    hits: int('hits', { unsigned: true }).notNull(),
+    resetAt: datetime('reset_at', { fsp: 3 }).notNull(),
+  },
+  (t) => [index('rate_limits_reset').on(t.resetAt)],
+);
+
 export const platforms = mysqlTable(
   'platforms',
   {

@@ -1,10 +1,20 @@
 // The one place that reads process.env. Everything else receives a Config.
+import { existsSync } from 'node:fs';
 import path from 'node:path';
 import { z } from 'zod';
+import type { DbSettings } from '../db/settings';
 import pkg from '../package.json' with { type: 'json' };
 
+/** The folder holding package.json: the repository, whether this file runs from server/ or build/server/. */
+function findRoot(start: string): string {
+  for (let dir = start; ; dir = path.dirname(dir)) {
+    if (existsSync(path.join(dir, 'package.json'))) return dir;
+    if (path.dirname(dir) === dir) return start;
+  }
+}
+
 // drizzle-kit loads this file as CommonJS, where import.meta is empty; it always runs from the repo root.
-const root = import.meta.dirname ? path.resolve(import.meta.dirname, '..') : process.cwd();
+const root = import.meta.dirname ? findRoot(path.resolve(import.meta.dirname, '..')) : process.cwd();
 
 const flag = z
   .enum(['1', '0', 'true', 'false', 'yes', 'no'])
@@ -37,7 +47,29 @@ const configSchema = z.object({
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
   DIGEST_CRON: z.string().default('0 7 * * 1'),
   AUTH_LIMIT_PER_ADDRESS: z.coerce.number().int().positive().default(60),
+  // Unset: migrate on start outside production only; production runs npm run db:migrate as a step.
+  MIGRATE_ON_START: flag.optional(),
 });
+
+/**
+ * Settings whose demo default is unsafe for real data, with why. In production each must be
+ * set explicitly; what the operator then chooses is theirs (e.g. COOKIE_SECURE=false behind TLS
+ * offload on loopback).
+ */
+export const PRODUCTION_REQUIRED = {
+  DEMO_MODE: 'demo mode shows every sent e-mail in the Outbox page; set DEMO_MODE=false',
+  DB_PASSWORD: 'the database password defaults to the published demo value',
+  SESSION_SECRET: 'without it a secret is generated into the data folder, different on every instance',
+  COOKIE_SECURE: 'session cookies are sent over plain HTTP unless COOKIE_SECURE=true',
+} as const;
+
+/** The unsafe demo defaults a production start would run with, one line per variable. */
+export function productionProblems(env: NodeJS.ProcessEnv = process.env): string[] {
+  if (env.NODE_ENV !== 'production') return [];
+  return Object.entries(PRODUCTION_REQUIRED)
+    .filter(([name]) => env[name] === undefined || env[name] === '')
+    .map(([name, why]) => `${name} is not set: ${why}`);
+}
 
 export type Config = ReturnType<typeof loadConfig>;
 
@@ -60,7 +92,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env) {
     webDist: path.join(root, 'dist'),
     /** npm run dev: pages come from Expo's dev server instead of dist/. */
     webDevServer: undefined as string | undefined,
-    db: { host: c.DB_HOST, port: c.DB_PORT, database: c.DB_NAME, user: c.DB_USER, password: c.DB_PASSWORD },
+    db: { host: c.DB_HOST, port: c.DB_PORT, database: c.DB_NAME, user: c.DB_USER, password: c.DB_PASSWORD } satisfies DbSettings,
     session: {
       secret: c.SESSION_SECRET,
       idleMinutes: c.SESSION_IDLE_MINUTES,
@@ -69,6 +101,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env) {
     },
     mail: { host: c.SMTP_HOST, port: c.SMTP_PORT, webPort: c.MAIL_WEB_PORT, from: c.MAIL_FROM },
     demoMode: c.DEMO_MODE,
+    migrateOnStart: c.MIGRATE_ON_START ?? c.NODE_ENV !== 'production',
     logLevel: c.LOG_LEVEL,
     searchWorkers: c.SEARCH_WORKERS,
     digestCron: c.DIGEST_CRON,

@@ -5,12 +5,30 @@ import type { Server } from 'node:http';
 import path from 'node:path';
 import pino from 'pino';
 import { safeLogger } from './http/safe-log';
-import { applyMigrations, connect } from '../db/client';
+import { applyMigrations, connect, pendingMigrations, type Db } from '../db/client';
 import { createApp } from './app';
 import type { Config } from './config';
 import type { AppContext } from './context';
 import { createMailer } from './mail/mailer';
 import { startDigestScheduler } from './patterns/scheduler';
+import { accountsOnDemoPassword } from './seed/demo';
+
+/** Thrown when the server must not start; the message tells the operator what to change. */
+export class StartRefused extends Error {}
+
+/** Migrates when told to; otherwise refuses a database whose schema is behind this build. */
+async function prepareSchema(db: Db, config: Config) {
+  if (config.migrateOnStart) return applyMigrations(db);
+  const pending = await pendingMigrations(db);
+  if (pending.length > 0) throw new StartRefused(`The database is missing ${pending.length} migration(s) (${pending.join(', ')}). Run the migration step first (npm run migrate:prod; npm run db:migrate in a checkout), or set MIGRATE_ON_START=true.`);
+}
+
+/** Production without demo mode: demo people must not still sign in with the published password. */
+async function refuseDemoPasswords(db: Db, config: Config) {
+  if (config.env !== 'production' || config.demoMode) return;
+  const accounts = await accountsOnDemoPassword(db, config.root);
+  if (accounts.length > 0) throw new StartRefused(`These accounts still have the published demo password: ${accounts.join(', ')}. Change their passwords or remove them before a production start.`);
+}
 
 /** The configured secret, or one generated once and kept under .data/ so sessions survive restarts. */
 export function sessionSecret(config: Config): string {
@@ -34,7 +52,13 @@ export async function startServer(config: Config): Promise<RunningServer> {
   // scheduler and mail failures log errors too: the same redaction as requests
   const log = safeLogger(pino({ level: config.logLevel, base: { app: 'causeway' } }));
   const database = connect(config.db);
-  await applyMigrations(database.db);
+  try {
+    await prepareSchema(database.db, config);
+    await refuseDemoPasswords(database.db, config);
+  } catch (err) {
+    await database.close();
+    throw err;
+  }
   const ctx: AppContext = { db: database.db, config, mailer: createMailer(config), log };
   const app = createApp({ ctx, pool: database.pool, sessionSecret: sessionSecret(config) });
   const server = await new Promise<Server>((resolve, reject) => {

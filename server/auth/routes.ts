@@ -9,6 +9,7 @@ import {
 import type { AppContext } from '../context';
 import { HttpError, unauthorised } from '../http/errors';
 import { can } from '../http/guard';
+import { MariaDbRateLimitStore } from '../http/rate-limit-store';
 import { valid, validate } from '../http/validate';
 import { csrfToken, SESSION_COOKIE } from './session';
 import { authenticate, requestPasswordReset, setPasswordWithToken, signUp } from './service';
@@ -32,6 +33,7 @@ export function authRoutes(ctx: AppContext) {
     limit: ctx.config.limits.authPerAddress,
     standardHeaders: 'draft-8',
     legacyHeaders: false,
+    store: new MariaDbRateLimitStore(ctx.db, 'auth:'), // shared by every instance
     handler: (_req, _res, next) =>
       next(new HttpError(429, 'too_many_requests', 'Too many attempts from this address. Wait ten minutes and try again.')),
   });

@@ -105,8 +105,19 @@ export async function createCase(ctx: AppContext, actor: SessionUser | Actor, in
   return { id, version: 1 };
 }
 
-/** Applies changes if the case is still at `expectedVersion`; otherwise 409 with the current version. */
-async function applyChanges(ctx: AppContext, actor: Actor, row: CaseRow, expectedVersion: number, changes: CaseChanges, lookups?: { codes: string[]; symptoms: string[] }) {
+type CommentKind = typeof caseComments.$inferInsert.kind;
+
+/** What a status change writes beside the case: its comment, in the same transaction. */
+interface ChangeRecord {
+  lookups?: { codes: string[]; symptoms: string[] };
+  comment?: { kind: CommentKind; body: string };
+}
+
+/**
+ * Applies changes if the case is still at `expectedVersion`; otherwise 409 with the current version.
+ * The case, its lookups, revision, change-log entry and comment commit together or not at all.
+ */
+async function applyChanges(ctx: AppContext, actor: Actor, row: CaseRow, expectedVersion: number, changes: CaseChanges, { lookups, comment }: ChangeRecord = {}) {
   const next = await transaction(ctx.db, async (tx) => {
     const [result] = await tx
       .update(cases)
@@ -117,6 +128,7 @@ async function applyChanges(ctx: AppContext, actor: Actor, row: CaseRow, expecte
     const [updated] = await tx.select().from(cases).where(eq(cases.id, row.id));
     await writeRevision(tx, updated!, actor.id);
     await recordChange(tx, row.shopId, 'case', row.id, changes.deletedAt ? 'delete' : 'upsert');
+    if (comment) await addComment(tx, row.id, actor.id, comment.kind, comment.body);
     return updated!;
   });
   if (!next) {
@@ -149,11 +161,11 @@ export async function updateCase(ctx: AppContext, actor: Actor, id: number, patc
   }
   const touchesLookups = fields.codes !== undefined || fields.symptoms !== undefined;
   const lookups = touchesLookups ? { codes: fields.codes ?? row.codes, symptoms: fields.symptoms ?? row.symptoms } : undefined;
-  const updated = await applyChanges(ctx, actor, row, version, changes, lookups);
+  const updated = await applyChanges(ctx, actor, row, version, changes, { lookups });
   return { id: updated.id, version: updated.version };
 }
 
-async function addComment(db: Db, caseId: number, authorId: number, kind: typeof caseComments.$inferInsert.kind, body: string) {
+async function addComment(db: Db, caseId: number, authorId: number, kind: CommentKind, body: string) {
   await db.insert(caseComments).values({ caseId, authorId, kind, body });
 }
 
@@ -161,8 +173,7 @@ export async function submitCase(ctx: AppContext, actor: SessionUser, id: number
   const row = await loadVisibleCase(ctx.db, actor, id);
   if (row.authorId !== actor.id && !isSeniorOrAbove(actor)) throw forbidden('Only the author can send this case for review.');
   if (row.status !== 'draft') throw conflict(row.status === 'review' ? 'This case is already waiting for review.' : 'This case is already published.');
-  await applyChanges(ctx, actor, row, row.version, { status: 'review' });
-  await addComment(ctx.db, id, actor.id, 'submitted', 'Sent for review.');
+  await applyChanges(ctx, actor, row, row.version, { status: 'review' }, { comment: { kind: 'submitted', body: 'Sent for review.' } });
   await notifySubmitted(ctx, actor.shopId, row, actor.name);
 }
 
@@ -170,16 +181,14 @@ export async function publishCase(ctx: AppContext, actor: SessionUser, id: numbe
   const row = await loadVisibleCase(ctx.db, actor, id);
   if (!canPublish(actor)) throw forbidden('Only senior techs and managers can publish.');
   if (row.status === 'published') throw conflict('This case is already published.');
-  await applyChanges(ctx, actor, row, row.version, { status: 'published' });
-  await addComment(ctx.db, id, actor.id, 'published', 'Published.');
+  await applyChanges(ctx, actor, row, row.version, { status: 'published' }, { comment: { kind: 'published', body: 'Published.' } });
 }
 
 export async function returnCase(ctx: AppContext, actor: SessionUser, id: number, comment: string) {
   const row = await loadVisibleCase(ctx.db, actor, id);
   if (!canPublish(actor)) throw forbidden('Only senior techs and managers can return a case.');
   if (row.status !== 'review') throw conflict('Only a case waiting for review can be returned.');
-  await applyChanges(ctx, actor, row, row.version, { status: 'draft' });
-  await addComment(ctx.db, id, actor.id, 'returned', comment);
+  await applyChanges(ctx, actor, row, row.version, { status: 'draft' }, { comment: { kind: 'returned', body: comment } });
   await notifyReturned(ctx, row, actor.name, comment);
 }
 
@@ -188,8 +197,8 @@ export async function confirmFix(ctx: AppContext, actor: SessionUser, id: number
   if (!canConfirmFix(actor)) throw forbidden('Only senior techs and managers can confirm a fix.');
   if (!row.fix?.trim()) throw badRequest('Write down the fix before confirming it.', { fix: 'Describe the fix first.' });
   if (row.confirmedAt) throw conflict('This fix is already confirmed.');
-  await applyChanges(ctx, actor, row, row.version, { confirmedById: actor.id, confirmedAt: new Date(), confirmNote: note ?? null });
-  await addComment(ctx.db, id, actor.id, 'confirmed', note ? `Fix confirmed: ${note}` : 'Fix confirmed.');
+  const changes = { confirmedById: actor.id, confirmedAt: new Date(), confirmNote: note ?? null };
+  await applyChanges(ctx, actor, row, row.version, changes, { comment: { kind: 'confirmed', body: note ? `Fix confirmed: ${note}` : 'Fix confirmed.' } });
 }
 
 export async function commentOnCase(ctx: AppContext, actor: SessionUser, id: number, body: string) {

@@ -14,8 +14,11 @@ if (action === 'start') {
   const stopped = await stopLocalServer(config);
   console.log(stopped ? 'MariaDB stopped' : 'MariaDB was not running');
 } else if (action === 'migrate') {
-  await startLocalServer(config);
-  ensureAppDatabase(config);
+  // production databases are the operator's; only the demo's private MariaDB is started here
+  if (config.env !== 'production') {
+    await startLocalServer(config);
+    ensureAppDatabase(config);
+  }
   const database = connect(config.db);
   await applyMigrations(database.db);
   await database.close();

@@ -1,8 +1,6 @@
 // Plain-text first, HTML beside it; every message reads well in either.
+import { escapeHtml } from '../../shared/html';
 import type { OutgoingMail } from './mailer';
-
-const escapeHtml = (s: string) =>
-  s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
 
 /** A message from paragraphs and an optional action link. */
 export function composeMail(to: string | string[], subject: string, paragraphs: string[], action?: { label: string; url: string }): OutgoingMail {

@@ -2,15 +2,13 @@
 // Plain text first with an HTML twin; links go to the case and vehicle pages.
 import { and, eq } from 'drizzle-orm';
 import { digestRuns, shops, users } from '../../db/schema';
+import { escapeHtml } from '../../shared/html';
 import { addDays, dayOf } from '../../shared/patterns';
 import type { PatternsResponse } from '../../shared/schemas/patterns';
 import { isDuplicate } from '../auth/service';
 import type { AppContext } from '../context';
 import type { OutgoingMail } from '../mail/mailer';
 import { getPatterns } from './service';
-
-const escapeHtml = (s: string) =>
-  s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
 
 const percent = (r: number | null) => (r === null ? 'no cases yet' : `${Math.round(r * 100)} %`);
 

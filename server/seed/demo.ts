@@ -1,10 +1,10 @@
 // Loads the demo shop once per database. A marker row in app_meta makes later starts skip it;
 // everything is written in one transaction so a failed load leaves nothing half done.
 import path from 'node:path';
-import { eq } from 'drizzle-orm';
+import { eq, inArray } from 'drizzle-orm';
 import type { Db } from '../../db/client';
 import { appMeta, platforms, shops, users } from '../../db/schema';
-import { hashPassword } from '../auth/passwords';
+import { hashPassword, verifyPassword } from '../auth/passwords';
 import { DEMO_PASSWORD, readDemoPlatforms, readDemoShop, type DemoShop } from './demo-files';
 
 const MARKER = 'demo_loaded';
@@ -45,4 +45,12 @@ export async function loadDemoData(db: Db, root: string, extra?: (tx: Db, shopId
     return shop!.id;
   });
   return { loaded: true, shopId, users: demo.users };
+}
+
+/** Demo people (content/shop.yaml) whose account still signs in with the published demo password. */
+export async function accountsOnDemoPassword(db: Db, root: string): Promise<string[]> {
+  const emails = readDemoShop(path.join(root, 'content')).users.map((u) => u.email.toLowerCase());
+  const rows = await db.select({ email: users.email, passwordHash: users.passwordHash }).from(users).where(inArray(users.email, emails));
+  const stillDemo = await Promise.all(rows.map(async (r) => (r.passwordHash && (await verifyPassword(r.passwordHash, DEMO_PASSWORD)) ? r.email : null)));
+  return stillDemo.filter((e): e is string => e !== null);
 }

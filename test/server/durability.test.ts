@@ -2,8 +2,7 @@
 // middle, both restarted; every write the API acknowledged must be there, intact.
 // Runs on a MariaDB instance of its own (own data folder and port), with the default
 // innodb_flush_log_at_trx_commit=1 that real data uses.
-import { spawn, type ChildProcess } from 'node:child_process';
-import { mkdtempSync, readFileSync } from 'node:fs';
+import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import request from 'supertest';
@@ -12,47 +11,53 @@ import { applyMigrations, connect } from '../../db/client';
 import { ensureAppDatabase, localServerPaths, startLocalServer, stopLocalServer } from '../../db/local-server';
 import { shops, users } from '../../db/schema';
 import { hashPassword } from '../../server/auth/passwords';
-import { TEST_PORT_OFFSET, testConfig } from '../support/env';
+import { compileServer, startCompiledServer } from '../support/compiled-server';
+import { testConfig } from '../support/env';
+import { freePort, groupAlive } from '../support/processes';
 
 const WRITES = Number(process.env.DURABILITY_WRITES ?? 1000);
 const KILL_AFTER = Math.floor(WRITES * 0.4);
-const PORT = 8097 + TEST_PORT_OFFSET;
-const env = { DATA_DIR: mkdtempSync(path.join(os.tmpdir(), 'cw-durable-')), DB_PORT: String(3392 + TEST_PORT_OFFSET), DB_NAME: 'causeway', PORT: String(PORT) };
-const config = testConfig(env);
-const root = path.resolve(import.meta.dirname, '../..');
-let server: ChildProcess | null = null;
+const dataDir = mkdtempSync(path.join(os.tmpdir(), 'cw-durable-'));
+let env: Record<string, string>;
+let config: ReturnType<typeof testConfig>;
+let build: Awaited<ReturnType<typeof compileServer>>;
+let server: Awaited<ReturnType<typeof startCompiledServer>> | null = null;
 
+/** The compiled server run by node itself: the process that is killed is the one that serves. */
 async function startApp() {
   await startLocalServer(config);
   ensureAppDatabase(config);
-  server = spawn(path.join(root, 'node_modules/.bin/tsx'), ['server/cli/serve.ts'], {
-    cwd: root,
-    env: { ...process.env, ...env, LOG_LEVEL: process.env.DURABILITY_LOG ?? 'silent', SESSION_SECRET: config.session.secret, SMTP_PORT: String(config.mail.port), MAIL_WEB_PORT: String(config.mail.webPort) },
-    stdio: ['ignore', 'pipe', 'inherit'],
-  });
-  await new Promise<void>((resolve, reject) => {
-    server!.stdout!.on('data', (d: Buffer) => {
-      if (process.env.DURABILITY_LOG) process.stdout.write(d);
-      if (d.toString().includes('listening')) resolve();
-    });
-    server!.on('exit', (code) => reject(new Error(`server exited ${code}`)));
+  server = await startCompiledServer(build.dir, {
+    ...process.env,
+    ...env,
+    PORT: '0', // a free port each start
+    LOG_LEVEL: process.env.DURABILITY_LOG ?? 'silent',
+    SESSION_SECRET: config.session.secret,
+    SMTP_PORT: String(config.mail.port),
+    MAIL_WEB_PORT: String(config.mail.webPort),
   });
 }
 
-function killEverything() {
-  server?.kill('SIGKILL');
-  const pid = Number(readFileSync(localServerPaths(config).pidFile, 'utf8'));
-  process.kill(pid, 'SIGKILL');
+/** SIGKILL to the server's process group and to MariaDB; resolves once the server's group is gone. */
+async function killEverything() {
+  const dying = server!;
+  const gone = dying.kill('SIGKILL'); // the server first, so it dies holding requests, not answering DB errors
+  process.kill(Number(readFileSync(localServerPaths(config).pidFile, 'utf8')), 'SIGKILL');
+  await gone;
+  return dying;
 }
 
 async function signIn() {
-  const agent = request.agent(`http://127.0.0.1:${PORT}`);
+  const agent = request.agent(server!.url);
   const csrf = (await agent.get('/api/auth/csrf')).body.token as string;
   await agent.post('/api/auth/login').set('X-CSRF-Token', csrf).send({ email: 'writer@durable.test', password: 'durable password' }).expect(200);
   return { agent, csrf };
 }
 
 beforeAll(async () => {
+  env = { DATA_DIR: dataDir, DB_PORT: String(await freePort()), DB_NAME: 'causeway' };
+  config = testConfig(env);
+  build = await compileServer();
   await startLocalServer(config);
   ensureAppDatabase(config);
   const database = connect(config.db);
@@ -64,8 +69,10 @@ beforeAll(async () => {
 }, 120_000);
 
 afterAll(async () => {
-  server?.kill('SIGKILL');
+  await server?.kill('SIGKILL');
   await stopLocalServer(config);
+  build.remove();
+  rmSync(dataDir, { recursive: true, force: true });
 });
 
 describe('durability under SIGKILL', () => {
@@ -74,14 +81,19 @@ describe('durability under SIGKILL', () => {
     let session = await signIn();
     let attempted = 0;
     let killed = false;
+    let inFlight = 0;
+    const atKill: { inFlight: number; server?: Awaited<ReturnType<typeof killEverything>> } = { inFlight: 0 };
     const writeOne = async () => {
       const n = attempted++;
       const title = `Durable write ${n}`;
+      inFlight++;
       try {
         const res = await session.agent.post('/api/cases').set('X-CSRF-Token', session.csrf).send({ title, body: `body of write ${n}: \`${n} psi\``, codes: ['P0299'], symptoms: ['low-power'], status: 'published' });
         if (res.status === 201) acknowledged.set(res.body.id, title);
       } catch {
         // connection cut by the kill: not acknowledged, so not expected to be there
+      } finally {
+        inFlight--;
       }
     };
     let restarting: Promise<void> | null = null;
@@ -89,9 +101,10 @@ describe('durability under SIGKILL', () => {
       while (attempted < WRITES) {
         if (!killed && acknowledged.size >= KILL_AFTER) {
           killed = true;
-          killEverything();
+          atKill.inFlight = inFlight;
           // the other workers wait for the restart instead of hammering a dead port
           restarting = (async () => {
+            atKill.server = await killEverything();
             await new Promise((r) => setTimeout(r, 200));
             await startApp();
             session = await signIn();
@@ -103,8 +116,11 @@ describe('durability under SIGKILL', () => {
     };
     await Promise.all(Array.from({ length: 8 }, worker));
     expect(killed).toBe(true);
+    const dead = atKill.server!;
+    expect(groupAlive(dead.child.pid!), 'no process of the killed server survives').toBe(false);
+    await expect(fetch(`${dead.url}/api/health`), 'nothing answers on the killed server\'s port').rejects.toThrow();
     // Restart once more so nothing is answered from a process that saw the writes.
-    server?.kill('SIGKILL');
+    await server!.kill('SIGKILL');
     await startApp();
     const check = await signIn();
     const missing: number[] = [];
@@ -112,8 +128,9 @@ describe('durability under SIGKILL', () => {
       const res = await check.agent.get(`/api/cases/${id}`);
       if (res.status !== 200 || res.body.case.title !== title || !res.body.case.body.startsWith('body of write')) missing.push(id);
     }
-    console.log(`durability: ${attempted} writes attempted, ${acknowledged.size} acknowledged, ${missing.length} acknowledged writes lost`);
+    console.log(`durability: ${attempted} writes attempted, ${atKill.inFlight} in flight when the server (pid ${dead.child.pid}) and MariaDB were killed, ${acknowledged.size} acknowledged, ${missing.length} acknowledged writes lost`);
     expect(missing).toEqual([]);
+    expect(atKill.inFlight, 'the server was killed mid-write').toBeGreaterThan(0);
     expect(acknowledged.size).toBeGreaterThan(WRITES * 0.9);
   }, 300_000);
 });
