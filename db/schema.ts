@@ -159,6 +159,8 @@ export const cases = mysqlTable(
     index('cases_shop_updated').on(t.shopId, t.updatedAt),
     index('cases_shop_status').on(t.shopId, t.status),
     index('cases_shop_platform').on(t.shopId, t.platformId),
+    // covers search reconciliation's per-shop count and versions of live cases (server/search/reconcile.ts)
+    index('cases_shop_live_version').on(t.shopId, t.deletedAt, t.version),
     index('cases_vehicle').on(t.vehicleId),
     uniqueIndex('cases_shop_slug').on(t.shopId, t.slug),
   ],

@@ -20,6 +20,14 @@ const flag = z
   .enum(['1', '0', 'true', 'false', 'yes', 'no'])
   .transform((v) => v === '1' || v === 'true' || v === 'yes');
 
+/** Search feed timings, also the defaults of a SearchService made without a config (tests, bench). */
+export const SEARCH_DEFAULTS = {
+  /** a change-log id missing below the newest is waited for this long (docs/search.md, "Live updates") */
+  gapTimeoutMs: 120_000,
+  /** how often each shop index is compared with the cases table */
+  reconcileMs: 60_000,
+};
+
 const configSchema = z.object({
   NODE_ENV: z.enum(['development', 'production', 'test']).default('development'),
   HOST: z.string().default('127.0.0.1'),
@@ -44,6 +52,10 @@ const configSchema = z.object({
   // Search worker threads, each with its own copy of the index (about 200 MiB per 100,000 cases).
   // One on a 2-core machine: a second competed with the HTTP thread and lost (docs/performance.md).
   SEARCH_WORKERS: z.coerce.number().int().min(1).max(16).default(1),
+  // Longer than any transaction that writes a change-log row may stay open (ours take milliseconds).
+  SEARCH_GAP_TIMEOUT_MS: z.coerce.number().int().min(100).default(SEARCH_DEFAULTS.gapTimeoutMs),
+  // 0 turns reconciliation off.
+  SEARCH_RECONCILE_MS: z.coerce.number().int().min(0).default(SEARCH_DEFAULTS.reconcileMs),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
   DIGEST_CRON: z.string().default('0 7 * * 1'),
   AUTH_LIMIT_PER_ADDRESS: z.coerce.number().int().positive().default(60),
@@ -104,6 +116,8 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env) {
     migrateOnStart: c.MIGRATE_ON_START ?? c.NODE_ENV !== 'production',
     logLevel: c.LOG_LEVEL,
     searchWorkers: c.SEARCH_WORKERS,
+    searchGapTimeoutMs: c.SEARCH_GAP_TIMEOUT_MS,
+    searchReconcileMs: c.SEARCH_RECONCILE_MS,
     digestCron: c.DIGEST_CRON,
     limits: { authPerAddress: c.AUTH_LIMIT_PER_ADDRESS, jsonBody: '1mb' },
     version: pkg.version,

@@ -16,7 +16,15 @@ import type { WorkerReply, WorkerRequest } from './worker-protocol';
 type Pending = { resolve: (value: unknown) => void; reject: (err: unknown) => void };
 type Request = WorkerRequest extends infer R ? (R extends { id: number } ? Omit<R, 'id'> : never) : never;
 
-const STARTING: SearchIndexStatus = { state: 'starting', shops: { ready: 0, building: 0 }, cases: 0, lastChangeId: 0, buildMs: null };
+const STARTING: SearchIndexStatus = {
+  state: 'starting',
+  shops: { ready: 0, building: 0 },
+  cases: 0,
+  lastChangeId: 0,
+  buildMs: null,
+  gaps: { open: 0, filled: 0, expired: 0 },
+  reconcile: { runs: 0, drifted: 0, repaired: 0, lastAt: null, lastMs: null },
+};
 const entry = new URL(`./worker.${import.meta.url.endsWith('.ts') ? 'ts' : 'js'}`, import.meta.url).href;
 const unavailable = (why: string) => new HttpError(503, 'search_unavailable', why);
 
@@ -81,17 +89,27 @@ class SearchWorker {
   }
 }
 
-/** Several workers' index states as one: ready when all are, as far along as the slowest. */
+/** Several workers' index states as one: ready when all are, as far along as the slowest; counters add up. */
 function combine(states: SearchIndexStatus[]): SearchIndexStatus {
   const order: SearchIndexStatus['state'][] = ['error', 'stopped', 'starting', 'building', 'ready'];
   const state = order.find((s) => states.some((x) => x.state === s)) ?? 'starting';
   const min = (f: (s: SearchIndexStatus) => number) => Math.min(...states.map(f));
+  const sum = (f: (s: SearchIndexStatus) => number) => states.reduce((n, s) => n + f(s), 0);
+  const latest = states.map((s) => s.reconcile).sort((x, y) => (y.lastAt ?? '').localeCompare(x.lastAt ?? ''))[0]!;
   return {
     state,
     shops: { ready: min((s) => s.shops.ready), building: Math.max(...states.map((s) => s.shops.building)) },
     cases: min((s) => s.cases),
     lastChangeId: min((s) => s.lastChangeId),
     buildMs: states.some((s) => s.buildMs === null) ? null : Math.max(...states.map((s) => s.buildMs!)),
+    gaps: { open: sum((s) => s.gaps.open), filled: sum((s) => s.gaps.filled), expired: sum((s) => s.gaps.expired) },
+    reconcile: {
+      runs: sum((s) => s.reconcile.runs),
+      drifted: sum((s) => s.reconcile.drifted),
+      repaired: sum((s) => s.reconcile.repaired),
+      lastAt: latest.lastAt,
+      lastMs: latest.lastMs,
+    },
   };
 }
 

@@ -1,10 +1,11 @@
 // Reads what the search index needs from MariaDB: a shop's live cases in pages
 // (keyset by id, so a big shop never arrives as one huge result), one case on a
-// change, a shop's platforms, and the change log after a given id.
+// change, and a shop's platforms. Each case comes with its version, which the index keeps
+// beside it for reconciliation (reconcile.ts). The change log is read by server/changes/follower.ts.
 import { platformFromRow } from '../platforms/service';
-import { and, asc, eq, gt, inArray, isNull, max } from 'drizzle-orm';
+import { and, asc, eq, gt, inArray, isNull } from 'drizzle-orm';
 import type { Db } from '../../db/client';
-import { cases, changeLog, platforms } from '../../db/schema';
+import { cases, platforms } from '../../db/schema';
 import type { Platform } from '../../shared/platform';
 import type { CaseRow } from './shop-index';
 
@@ -23,11 +24,15 @@ const caseColumns = {
   authorId: cases.authorId,
   confirmedAt: cases.confirmedAt,
   updatedAt: cases.updatedAt,
+  version: cases.version,
 };
+
+/** A case as the index takes it, with the version it was read at. */
+export type LoadedCase = CaseRow & { version: number };
 
 const list = (v: unknown): string[] => (Array.isArray(v) ? v.filter((x): x is string => typeof x === 'string') : []);
 
-function toRow(r: { [K in keyof typeof caseColumns]: unknown }): CaseRow {
+function toRow(r: { [K in keyof typeof caseColumns]: unknown }): LoadedCase {
   return {
     id: Number(r.id),
     title: String(r.title),
@@ -42,13 +47,14 @@ function toRow(r: { [K in keyof typeof caseColumns]: unknown }): CaseRow {
     authorId: Number(r.authorId),
     confirmedAt: (r.confirmedAt as Date | null) ?? null,
     updatedAt: r.updatedAt as Date,
+    version: Number(r.version),
   };
 }
 
 export const PAGE_SIZE = 2000;
 
 /** One page of a shop's live (not deleted) cases with id > afterId. */
-export async function loadCasePage(db: Db, shopId: number, afterId: number, size = PAGE_SIZE): Promise<CaseRow[]> {
+export async function loadCasePage(db: Db, shopId: number, afterId: number, size = PAGE_SIZE): Promise<LoadedCase[]> {
   const rows = await db
     .select(caseColumns)
     .from(cases)
@@ -59,7 +65,7 @@ export async function loadCasePage(db: Db, shopId: number, afterId: number, size
 }
 
 /** Live cases by id, for the change log; deleted and other shops' ids are simply absent. */
-export async function loadCases(db: Db, shopId: number, ids: number[]): Promise<CaseRow[]> {
+export async function loadCases(db: Db, shopId: number, ids: number[]): Promise<LoadedCase[]> {
   if (ids.length === 0) return [];
   const rows = await db
     .select(caseColumns)
@@ -71,30 +77,6 @@ export async function loadCases(db: Db, shopId: number, ids: number[]): Promise<
 export async function loadPlatforms(db: Db, shopId: number): Promise<Platform[]> {
   const rows = await db.select().from(platforms).where(eq(platforms.shopId, shopId));
   return rows.map((row) => platformFromRow(row) as Platform);
-}
-
-export interface Change {
-  id: number;
-  shopId: number;
-  entity: string;
-  entityId: number;
-  op: 'upsert' | 'delete';
-}
-
-/** Changes after `afterId`, oldest first: one primary-key range read. */
-export async function loadChanges(db: Db, afterId: number, size = 5000): Promise<Change[]> {
-  const rows = await db
-    .select({ id: changeLog.id, shopId: changeLog.shopId, entity: changeLog.entity, entityId: changeLog.entityId, op: changeLog.op })
-    .from(changeLog)
-    .where(gt(changeLog.id, afterId))
-    .orderBy(asc(changeLog.id))
-    .limit(size);
-  return rows.map((r) => ({ id: Number(r.id), shopId: Number(r.shopId), entity: r.entity, entityId: Number(r.entityId), op: r.op }));
-}
-
-export async function lastChangeId(db: Db): Promise<number> {
-  const [row] = await db.select({ id: max(changeLog.id) }).from(changeLog);
-  return Number(row?.id ?? 0);
 }
 
 export async function shopIdsWithCases(db: Db): Promise<number[]> {

@@ -1,9 +1,11 @@
 // Search for one app instance: an index per shop, built lazily in the
-// background, kept live by following the change log (server/changes).
-// Before answering, a search reads the log (id > last seen, a primary-key range)
-// when this process has written since the last read (db/client localWrites), so a change
-// made here is found on the very next search; a 500 ms poll brings in changes
-// made through other instances (and keeps idle ones current).
+// background, kept live by following the change log (server/changes/follower.ts,
+// which never skips an id that commits late) and checked against the cases table
+// every SEARCH_RECONCILE_MS (reconcile.ts).
+// Before answering, a search reads the log when this process has written since the
+// last read (db/client localWrites), so a change made here is found on the very next
+// search; a 500 ms poll brings in changes made through other instances (and keeps idle
+// ones current).
 import { performance } from 'node:perf_hooks';
 import { setImmediate as yieldToLoop } from 'node:timers/promises';
 import { parseDtc } from '../../shared/codes';
@@ -13,7 +15,10 @@ import type { SearchQuery, SearchResponse, SearchResult } from '../../shared/sch
 import type { AppContext } from '../context';
 import { localWrites } from '../../db/client';
 import { notFound } from '../http/errors';
-import { type Change, lastChangeId, loadCasePage, loadCases, loadChanges, loadPlatforms } from './loader';
+import { type Change, ChangeFollower, type FeedCounters } from '../changes/follower';
+import { SEARCH_DEFAULTS } from '../config';
+import { loadCasePage, loadCases, loadPlatforms } from './loader';
+import { type ReconcileCounters, Reconciler, type Versions } from './reconcile';
 import { type IndexedCandidate, ShopIndex } from './shop-index';
 import type { RankedCase } from '../../shared/search';
 import { shops } from '../../db/schema';
@@ -28,6 +33,8 @@ function unref<T>(timer: T): T {
 
 type ShopState = {
   index: ShopIndex;
+  /** id -> version of every case in the index, for reconciliation */
+  versions: Versions;
   ready: Promise<void>;
   building: boolean;
   pending: Change[];
@@ -45,6 +52,10 @@ export interface SearchServiceOptions {
   poll?: boolean;
   /** the app's write count (db/client localWrites) this service answers for (default: this thread's) */
   writeCount?: () => number;
+  /** how long a change-log id missing below the newest is waited for (SEARCH_GAP_TIMEOUT_MS) */
+  gapTimeoutMs?: number;
+  /** how often every built index is compared with the cases table; 0: never (SEARCH_RECONCILE_MS) */
+  reconcileMs?: number;
 }
 
 export interface SearchIndexStatus {
@@ -53,17 +64,24 @@ export interface SearchIndexStatus {
   cases: number;
   lastChangeId: number;
   buildMs: number | null;
+  /** change-log ids waited for, filled late and given up on (server/changes/follower.ts) */
+  gaps: FeedCounters;
+  reconcile: ReconcileCounters;
 }
 
 export class SearchService {
   private shops = new Map<number, ShopState>();
-  private lastSeen = 0;
+  private readonly follower: ChangeFollower;
+  private readonly reconciler: Reconciler;
+  /** the follower and the reconciler's repairs take turns: neither applies a row read before the other's */
+  private feedTurn: Promise<unknown> = Promise.resolve();
   /** localWrites() when the last log read started */
   private writesSeen = -1;
   private started: Promise<void>;
   private running: Promise<void> | null = null;
   private next: Promise<void> | null = null;
-  private timer: ReturnType<typeof setInterval> | null = null;
+  private timers: ReturnType<typeof setInterval>[] = [];
+  private reconciling = false;
   private stopped = false;
   private failed: string | null = null;
 
@@ -74,14 +92,30 @@ export class SearchService {
     options: SearchServiceOptions = {},
   ) {
     this.writeCount = options.writeCount ?? localWrites;
-    // the log position is read before any shop is built, so no change can fall between
-    this.started = lastChangeId(ctx.db).then((id) => {
-      this.lastSeen = id;
+    this.follower = new ChangeFollower(ctx.db, options.gapTimeoutMs ?? SEARCH_DEFAULTS.gapTimeoutMs);
+    this.reconciler = new Reconciler({
+      db: ctx.db,
+      log: ctx.log,
+      builtShops: () => [...this.shops.values()].filter((s) => !s.building).map((s) => ({ shopId: s.index.shopId, versions: s.versions })),
+      catchUp: () => this.catchUp(),
+      withFeedCaughtUp: (work) =>
+        this.takeFeedTurn(async () => {
+          await this.follower.poll((changes) => this.route(changes));
+          return work();
+        }),
+      refresh: (shopId, ids) => {
+        const state = this.shops.get(shopId);
+        return state && !state.building ? this.refreshCases(state, ids) : Promise.resolve(0);
+      },
     });
+    // the log position is read before any shop is built, so no change can fall between
+    this.started = this.follower.start();
     this.started.catch((err) => this.fail(err));
     if (options.poll !== false) {
-      this.timer = unref(setInterval(() => void this.catchUp().catch((err) => this.fail(err)), POLL_MS));
+      this.timers.push(unref(setInterval(() => void this.catchUp().catch((err) => this.fail(err)), POLL_MS)));
     }
+    const reconcileMs = options.reconcileMs ?? SEARCH_DEFAULTS.reconcileMs;
+    if (reconcileMs > 0) this.timers.push(unref(setInterval(() => void this.reconcileInBackground(), reconcileMs)));
     if (options.warm !== false) unref(setTimeout(() => void this.warmUp().catch((err) => this.fail(err)), 0));
   }
 
@@ -95,8 +129,29 @@ export class SearchService {
 
   stop() {
     this.stopped = true;
-    if (this.timer) clearInterval(this.timer);
-    this.timer = null;
+    for (const timer of this.timers) clearInterval(timer);
+    this.timers = [];
+  }
+
+  /** Compares every built shop index with the cases table and repairs what differs (reconcile.ts). */
+  async reconcile() {
+    await this.started;
+    await this.reconciler.run();
+  }
+
+  private async reconcileInBackground() {
+    if (this.reconciling || this.stopped) return; // a slow pass is never overlapped
+    this.reconciling = true;
+    await this.reconcile()
+      .catch((err) => this.fail(err))
+      .finally(() => (this.reconciling = false));
+  }
+
+  /** Runs `work` after every earlier follower read or repair has finished. */
+  private takeFeedTurn<T>(work: () => Promise<T>): Promise<T> {
+    const turn = this.feedTurn.then(work, work);
+    this.feedTurn = turn.catch(() => undefined);
+    return turn;
   }
 
   /** Builds every shop's index, one after another, without holding up requests. */
@@ -115,14 +170,22 @@ export class SearchService {
     const cases = states.reduce((n, s) => n + s.index.size, 0);
     const buildMs = states.reduce<number | null>((m, s) => (s.builtMs === null ? m : Math.max(m ?? 0, s.builtMs)), null);
     const state = this.stopped ? 'stopped' : states.some((s) => s.error) ? 'error' : building ? 'building' : states.length ? 'ready' : 'starting';
-    return { state, shops: { ready: states.length - building, building }, cases, lastChangeId: this.lastSeen, buildMs };
+    return {
+      state,
+      shops: { ready: states.length - building, building },
+      cases,
+      lastChangeId: this.follower.highWater,
+      buildMs,
+      gaps: this.follower.counters(),
+      reconcile: this.reconciler.status(),
+    };
   }
 
   /** The shop's index state; starts building it on first use. */
   shop(shopId: number): ShopState {
     let s = this.shops.get(shopId);
     if (s) return s;
-    const state: ShopState = { index: new ShopIndex(shopId), ready: Promise.resolve(), building: true, pending: [], builtMs: null, error: null };
+    const state: ShopState = { index: new ShopIndex(shopId), versions: new Map(), ready: Promise.resolve(), building: true, pending: [], builtMs: null, error: null };
     state.ready = this.build(state);
     // a failed build is reported to whoever waits on it; nobody waiting is not a crash
     state.ready.catch((err) => this.fail(err));
@@ -140,13 +203,16 @@ export class SearchService {
         const page = await loadCasePage(this.ctx.db, state.index.shopId, after);
         if (page.length === 0) break;
         state.index.addMany(page);
+        for (const row of page) state.versions.set(row.id, row.version);
         after = page[page.length - 1]!.id;
         // let sign-ins and other requests run between pages
         await yieldToLoop();
       }
-      state.building = false;
-      const pending = state.pending.splice(0);
-      await this.apply(state, pending);
+      // in the follower's turn, so no change it reads is applied before these older ones
+      await this.takeFeedTurn(async () => {
+        state.building = false;
+        await this.apply(state, state.pending.splice(0));
+      });
       state.builtMs = Math.round(performance.now() - t0);
       state.error = null;
     } catch (err) {
@@ -184,38 +250,52 @@ export class SearchService {
     return this.next;
   }
 
-  private async followOnce() {
-    await this.started;
-    this.writesSeen = this.writeCount();
-    for (;;) {
-      const changes = await loadChanges(this.ctx.db, this.lastSeen);
-      if (changes.length === 0) return;
-      const byShop = new Map<number, Change[]>();
-      for (const c of changes) {
-        const state = this.shops.get(c.shopId);
-        if (!state) continue; // not built yet: its build will read the current rows
-        if (state.building) state.pending.push(c);
-        else byShop.set(c.shopId, [...(byShop.get(c.shopId) ?? []), c]);
-      }
-      for (const [shopId, list] of byShop) await this.apply(this.shops.get(shopId)!, list);
-      this.lastSeen = changes[changes.length - 1]!.id;
-      if (changes.length < 5000) return;
-    }
+  private followOnce() {
+    return this.takeFeedTurn(async () => {
+      await this.started;
+      this.writesSeen = this.writeCount();
+      await this.follower.poll((changes) => this.route(changes));
+    });
   }
 
-  /** Re-reads the changed records: whatever is live now goes in, the rest comes out. */
+  /** Hands each change to its shop: applied now, kept for after the build, or skipped if never built. */
+  private async route(changes: Change[]) {
+    const byShop = new Map<number, Change[]>();
+    for (const c of changes) {
+      const state = this.shops.get(c.shopId);
+      if (!state) continue; // not built yet: its build will read the current rows
+      if (state.building) state.pending.push(c);
+      else byShop.set(c.shopId, [...(byShop.get(c.shopId) ?? []), c]);
+    }
+    for (const [shopId, list] of byShop) await this.apply(this.shops.get(shopId)!, list);
+  }
+
   private async apply(state: ShopState, changes: Change[]) {
     if (changes.length === 0) return;
-    const index = state.index;
-    if (changes.some((c) => c.entity === 'platform')) index.platforms = await loadPlatforms(this.ctx.db, index.shopId);
-    const ids = [...new Set(changes.filter((c) => c.entity === 'case').map((c) => c.entityId))];
+    if (changes.some((c) => c.entity === 'platform')) state.index.platforms = await loadPlatforms(this.ctx.db, state.index.shopId);
+    await this.refreshCases(state, [...new Set(changes.filter((c) => c.entity === 'case').map((c) => c.entityId))]);
+  }
+
+  /** Re-reads these cases: whatever is live now goes in, the rest comes out. Returns how many entries changed version or presence. */
+  private async refreshCases(state: ShopState, ids: number[]): Promise<number> {
+    const { index, versions } = state;
+    let changed = 0;
     for (let i = 0; i < ids.length; i += 500) {
       const chunk = ids.slice(i, i + 500);
       const rows = await loadCases(this.ctx.db, index.shopId, chunk);
       const live = new Set(rows.map((r) => r.id));
-      for (const id of chunk) if (!live.has(id)) index.remove(id);
-      for (const r of rows) index.upsert(r);
+      for (const id of chunk) {
+        if (live.has(id)) continue;
+        if (versions.delete(id)) changed++;
+        index.remove(id);
+      }
+      for (const r of rows) {
+        if (versions.get(r.id) !== r.version) changed++;
+        versions.set(r.id, r.version);
+        index.upsert(r);
+      }
     }
+    return changed;
   }
 
   /** One search, as GET /api/search answers it. */

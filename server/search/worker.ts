@@ -15,7 +15,10 @@ const port = parentPort!;
 const database = connect(config.db, { connectionLimit: 4 });
 const log = pino({ level: config.logLevel }).child({ thread: 'search' });
 let appWrites = 0;
-const service = new SearchService({ db: database.db, log }, { writeCount: () => appWrites });
+const service = new SearchService(
+  { db: database.db, log },
+  { writeCount: () => appWrites, gapTimeoutMs: config.searchGapTimeoutMs, reconcileMs: config.searchReconcileMs },
+);
 
 function toWorkerError(err: unknown): WorkerError {
   if (err instanceof HttpError) return { status: err.status, code: err.code, message: err.message };

@@ -1,0 +1,1 @@
+CREATE INDEX `cases_shop_live_version` ON `cases` (`shop_id`,`deleted_at`,`version`);
