@@ -1,26 +1,25 @@
 // Periodic reconciliation: the safety net under the change feed. Every SEARCH_RECONCILE_MS
 // it compares each built shop index with the cases table by a summary of the live cases
-// (count, max version, sum of versions and an XOR of CRC32(id.version)) and, where they
+// (count, max version, sum of versions, sum of ids) and, where they
 // differ, re-reads the cases that differ. The feed is gap-proof by itself
 // (server/changes/follower.ts); this repairs what no feed can see: a transaction that
 // outlived the gap timeout, rows written without a change-log row (a manual fix in SQL,
 // a restored backup), or a bug. Every repair is logged.
-import { crc32 } from 'node:zlib';
 import { and, eq, isNull, sql } from 'drizzle-orm';
 import type { Logger } from 'pino';
 import type { Db } from '../../db/client';
 import { cases } from '../../db/schema';
 
-/** id -> version of the cases a shop index holds, or of a shop's live rows. */
+/** id -> version of a shop's live rows. */
 export type Versions = Map<number, number>;
 
 export interface ShopSummary {
   count: number;
   maxVersion: number;
-  /** a missed edit to any case raises it; max version alone only sees the newest */
+  /** a missed edit to any case raises it; the max only moves with the highest version */
   versionSum: number;
-  /** XOR of CRC32("id.version"): tells apart a missed create and a missed delete that balance the count */
-  fingerprint: number;
+  /** tells apart a missed create and a missed delete that leave count and versions as they were */
+  idSum: number;
 }
 
 export interface ReconcileCounters {
@@ -33,37 +32,75 @@ export interface ReconcileCounters {
   lastMs: number | null;
 }
 
-const EMPTY: ShopSummary = { count: 0, maxVersion: 0, versionSum: 0, fingerprint: 0 };
+const EMPTY: ShopSummary = { count: 0, maxVersion: 0, versionSum: 0, idSum: 0 };
 
-const entryPrint = (id: number, version: number) => crc32(`${id}.${version}`);
+/**
+ * The versions of the cases one shop index holds, with their summary kept up to date as
+ * they change, so a reconciliation pass costs the index side nothing (the max is found
+ * again only after the case holding it went down or out).
+ */
+export class VersionLedger {
+  private readonly versions: Versions = new Map();
+  private sums = { versionSum: 0, idSum: 0 };
+  private max: number | null = 0;
 
-export function summarise(versions: Versions): ShopSummary {
-  const s = { ...EMPTY };
-  for (const [id, version] of versions) {
-    s.count++;
-    s.maxVersion = Math.max(s.maxVersion, version);
-    s.versionSum += version;
-    s.fingerprint = (s.fingerprint ^ entryPrint(id, version)) >>> 0;
+  get(id: number): number | undefined {
+    return this.versions.get(id);
   }
-  return s;
+
+  ids(): IterableIterator<number> {
+    return this.versions.keys();
+  }
+
+  set(id: number, version: number) {
+    const old = this.versions.get(id);
+    if (old !== undefined) this.forget(id, old);
+    this.versions.set(id, version);
+    this.sums.versionSum += version;
+    this.sums.idSum += id;
+    if (this.max !== null) this.max = Math.max(this.max, version);
+  }
+
+  /** Whether the id was held. */
+  delete(id: number): boolean {
+    const old = this.versions.get(id);
+    if (old === undefined) return false;
+    this.forget(id, old);
+    this.versions.delete(id);
+    return true;
+  }
+
+  summary(): ShopSummary {
+    if (this.max === null) {
+      this.max = 0;
+      for (const version of this.versions.values()) this.max = Math.max(this.max, version);
+    }
+    return { count: this.versions.size, maxVersion: this.max, ...this.sums };
+  }
+
+  private forget(id: number, version: number) {
+    this.sums.versionSum -= version;
+    this.sums.idSum -= id;
+    if (version === this.max) this.max = null;
+  }
 }
 
 export const sameSummary = (a: ShopSummary, b: ShopSummary) =>
-  a.count === b.count && a.maxVersion === b.maxVersion && a.versionSum === b.versionSum && a.fingerprint === b.fingerprint;
+  a.count === b.count && a.maxVersion === b.maxVersion && a.versionSum === b.versionSum && a.idSum === b.idSum;
 
 const summaryColumns = {
   shopId: cases.shopId,
   count: sql<number>`COUNT(*)`,
   maxVersion: sql<number>`COALESCE(MAX(${cases.version}), 0)`,
   versionSum: sql<number>`COALESCE(SUM(${cases.version}), 0)`,
-  fingerprint: sql<number>`BIT_XOR(CRC32(CONCAT(${cases.id}, '.', ${cases.version})))`,
+  idSum: sql<number>`COALESCE(SUM(${cases.id}), 0)`,
 };
 
-const toSummary = (r: { count: unknown; maxVersion: unknown; versionSum: unknown; fingerprint: unknown }): ShopSummary => ({
+const toSummary = (r: { count: unknown; maxVersion: unknown; versionSum: unknown; idSum: unknown }): ShopSummary => ({
   count: Number(r.count),
   maxVersion: Number(r.maxVersion),
   versionSum: Number(r.versionSum),
-  fingerprint: Number(r.fingerprint),
+  idSum: Number(r.idSum),
 });
 
 /** Every shop's summary of live cases in one pass over the (shop, deleted, version) index. */
@@ -90,10 +127,10 @@ export async function tableVersions(db: Db, shopId: number): Promise<Versions> {
 }
 
 /** Cases whose index entry differs from the table: absent, extra or at another version. */
-export function differing(index: Versions, table: Versions): number[] {
+export function differing(index: VersionLedger, table: Versions): number[] {
   const ids: number[] = [];
   for (const [id, version] of table) if (index.get(id) !== version) ids.push(id);
-  for (const id of index.keys()) if (!table.has(id)) ids.push(id);
+  for (const id of index.ids()) if (!table.has(id)) ids.push(id);
   return ids;
 }
 
@@ -102,7 +139,7 @@ export interface ReconcileHost {
   db: Db;
   log: Logger;
   /** the built (not building) shop indexes and the versions they hold */
-  builtShops(): Iterable<{ shopId: number; versions: Versions }>;
+  builtShops(): Iterable<{ shopId: number; versions: VersionLedger }>;
   /** reads the change feed once */
   catchUp(): Promise<void>;
   /**
@@ -127,7 +164,7 @@ export class Reconciler {
   async run() {
     const t0 = Date.now();
     const summaries = await tableSummaries(this.host.db);
-    const suspects = [...this.host.builtShops()].filter((s) => !sameSummary(summarise(s.versions), summaries.get(s.shopId) ?? EMPTY));
+    const suspects = [...this.host.builtShops()].filter((s) => !sameSummary(s.versions.summary(), summaries.get(s.shopId) ?? EMPTY));
     // most differences are saves the feed has not been read for yet
     if (suspects.length > 0) await this.host.catchUp();
     for (const shop of suspects) await this.repair(shop);
@@ -136,9 +173,9 @@ export class Reconciler {
     this.counters.lastMs = Date.now() - t0;
   }
 
-  private async repair(shop: { shopId: number; versions: Versions }) {
+  private async repair(shop: { shopId: number; versions: VersionLedger }) {
     const { host } = this;
-    if (sameSummary(summarise(shop.versions), await tableSummary(host.db, shop.shopId))) return;
+    if (sameSummary(shop.versions.summary(), await tableSummary(host.db, shop.shopId))) return;
     const changed = await host.withFeedCaughtUp(async () => {
       const ids = differing(shop.versions, await tableVersions(host.db, shop.shopId));
       return ids.length === 0 ? 0 : host.refresh(shop.shopId, ids);

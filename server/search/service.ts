@@ -18,7 +18,7 @@ import { notFound } from '../http/errors';
 import { type Change, ChangeFollower, type FeedCounters } from '../changes/follower';
 import { SEARCH_DEFAULTS } from '../config';
 import { loadCasePage, loadCases, loadPlatforms } from './loader';
-import { type ReconcileCounters, Reconciler, type Versions } from './reconcile';
+import { type ReconcileCounters, Reconciler, VersionLedger } from './reconcile';
 import { type IndexedCandidate, ShopIndex } from './shop-index';
 import type { RankedCase } from '../../shared/search';
 import { shops } from '../../db/schema';
@@ -34,7 +34,7 @@ function unref<T>(timer: T): T {
 type ShopState = {
   index: ShopIndex;
   /** id -> version of every case in the index, for reconciliation */
-  versions: Versions;
+  versions: VersionLedger;
   ready: Promise<void>;
   building: boolean;
   pending: Change[];
@@ -185,7 +185,7 @@ export class SearchService {
   shop(shopId: number): ShopState {
     let s = this.shops.get(shopId);
     if (s) return s;
-    const state: ShopState = { index: new ShopIndex(shopId), versions: new Map(), ready: Promise.resolve(), building: true, pending: [], builtMs: null, error: null };
+    const state: ShopState = { index: new ShopIndex(shopId), versions: new VersionLedger(), ready: Promise.resolve(), building: true, pending: [], builtMs: null, error: null };
     state.ready = this.build(state);
     // a failed build is reported to whoever waits on it; nobody waiting is not a crash
     state.ready.catch((err) => this.fail(err));

@@ -14,6 +14,7 @@ import { cases } from '../../db/schema';
 import { MissingIds } from '../../server/changes/missing-ids';
 import { recordChange } from '../../server/changes/change-log';
 import { createCase } from '../../server/cases/service';
+import { differing, VersionLedger } from '../../server/search/reconcile';
 import { SearchService } from '../../server/search/service';
 import type { Actor } from '../../shared/policy';
 import { searchQuerySchema } from '../../shared/schemas/search';
@@ -211,5 +212,36 @@ describe('MissingIds', () => {
     expect(m.expire(2500, 1000)).toBe(4);
     expect(m.list()).toEqual([{ from: 10, to: 10, since: 2000 }]);
     expect(() => m.add(9, 12, 3000)).toThrow(/overlap/);
+  });
+});
+
+describe('VersionLedger', () => {
+  it('keeps the summary the table would give as cases are added, re-versioned and removed', () => {
+    const ledger = new VersionLedger();
+    const table = new Map<number, number>();
+    const both = (id: number, version: number | null) => {
+      if (version === null) {
+        ledger.delete(id);
+        table.delete(id);
+      } else {
+        ledger.set(id, version);
+        table.set(id, version);
+      }
+    };
+    both(1, 1);
+    both(2, 4);
+    both(3, 2);
+    both(2, 5);
+    both(2, null); // the case holding the highest version goes
+    both(4, 1);
+    const versions = [...table.values()];
+    expect(ledger.summary()).toEqual({
+      count: table.size,
+      maxVersion: Math.max(...versions),
+      versionSum: versions.reduce((a, b) => a + b, 0),
+      idSum: [...table.keys()].reduce((a, b) => a + b, 0),
+    });
+    expect(ledger.summary()).toMatchObject({ count: 3, maxVersion: 2 });
+    expect(differing(ledger, new Map([[1, 1], [3, 3], [5, 1]]))).toEqual([3, 5, 4]);
   });
 });
