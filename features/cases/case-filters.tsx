@@ -6,6 +6,7 @@ import { tagSchema } from '../../shared/schemas/cases';
 import { useTheme } from '../theme/use-theme';
 import { Button } from '../ui/button';
 import { Choice } from '../ui/choice';
+import { Sheet } from '../ui/sheet';
 import { Row } from '../ui/surfaces';
 import { Heading, Text } from '../ui/text';
 import { TextField } from '../ui/text-field';
@@ -116,21 +117,15 @@ const withSort = (f: ListFilters, v: SortValue): ListFilters => {
 export function FilterSheet({ open, onClose, filters, onChange, total }: { open: boolean; onClose: () => void; filters: ListFilters; onChange: (f: ListFilters) => void; total: number | undefined }) {
   const t = useTheme();
   return (
-    <Modal visible={open} transparent animationType="slide" onRequestClose={onClose}>
-      <View style={{ flex: 1, justifyContent: 'flex-end', backgroundColor: t.colour.overlay }}>
-        <Pressable accessibilityLabel="Close filters" style={{ flex: 1 }} onPress={onClose} />
-        <View role="dialog" aria-label="Filters" style={{ backgroundColor: t.colour.card, borderTopLeftRadius: t.radius.lg, borderTopRightRadius: t.radius.lg, padding: t.space.lg, gap: t.space.lg, maxHeight: '85%' }}>
-          <Row style={{ justifyContent: 'space-between' }}>
-            <Heading level={2}>Filters</Heading>
-            <Button kind="quiet" compact label="Clear all" onPress={() => onChange({ sort: filters.sort, dir: filters.dir })} />
-          </Row>
-          <ScrollView style={{ flexGrow: 0 }} contentContainerStyle={{ gap: t.space.md, paddingHorizontal: t.space.xxs }} keyboardShouldPersistTaps="handled">
-            <Choice label="Order" options={sortOptions} value={sortValue(filters)} onChange={(v) => onChange(withSort(filters, v))} />
-            <FilterFields filters={filters} onChange={onChange} />
-          </ScrollView>
-          <Button label={total === undefined ? 'Show cases' : `Show ${total} case${total === 1 ? '' : 's'}`} onPress={onClose} />
-        </View>
-      </View>
-    </Modal>
+    <Sheet
+      open={open}
+      title="Filters"
+      onClose={onClose}
+      action={<Button kind="quiet" compact label="Clear all" onPress={() => onChange({ sort: filters.sort, dir: filters.dir })} />}
+      footer={<Button label={total === undefined ? 'Show cases' : `Show ${total} case${total === 1 ? '' : 's'}`} onPress={onClose} />}
+    >
+      <Choice label="Order" options={sortOptions} value={sortValue(filters)} onChange={(v) => onChange(withSort(filters, v))} />
+      <FilterFields filters={filters} onChange={onChange} />
+    </Sheet>
   );
 }

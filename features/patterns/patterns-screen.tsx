@@ -14,6 +14,7 @@ import { Badge, CodeChip } from '../ui/badges';
 import { Button } from '../ui/button';
 import { Choice } from '../ui/choice';
 import { Notice } from '../ui/notice';
+import { Sheet } from '../ui/sheet';
 import { EmptyState, Loaded } from '../ui/states';
 import { Card, Row, Screen } from '../ui/surfaces';
 import { Heading, Text } from '../ui/text';
@@ -34,16 +35,17 @@ const presets = [
 const daySchema = z.iso.date({ error: 'Write the date as YYYY-MM-DD.' });
 const engineOf = (label: string) => label.split(' ').at(-1) ?? label;
 
-function PeriodChooser({ onChange }: { onChange: (q: { from: string; to: string }) => void }) {
-  const t = useTheme();
-  const [preset, setPreset] = useState<Preset>('90');
+/** The period being chosen: a preset, or custom dates checked before they apply. Kept by the screen so the sheet can close. */
+function usePeriodChoice() {
   const today = dayOf(new Date());
+  const [period, setPeriod] = useState(() => defaultPeriod(today));
+  const [preset, setPreset] = useState<Preset>('90');
   const [from, setFrom] = useState(defaultPeriod(today).from);
   const [to, setTo] = useState(today);
   const [errors, setErrors] = useState<{ from?: string; to?: string }>({});
   const pick = (p: Preset) => {
     setPreset(p);
-    if (p !== 'custom') onChange(defaultPeriod(today, Number(p)));
+    if (p !== 'custom') setPeriod(defaultPeriod(today, Number(p)));
   };
   const apply = () => {
     const f = daySchema.safeParse(from);
@@ -51,20 +53,27 @@ function PeriodChooser({ onChange }: { onChange: (q: { from: string; to: string 
     const next = { from: f.success ? undefined : f.error.issues[0]?.message, to: tt.success ? undefined : tt.error.issues[0]?.message };
     if (!next.from && !next.to && from > to) next.from = 'The start is after the end.';
     setErrors(next);
-    if (!next.from && !next.to) onChange({ from, to });
+    if (!next.from && !next.to) setPeriod({ from, to });
   };
+  const label = preset === 'custom' ? 'Custom period' : (presets.find((x) => x.value === preset)?.label ?? '');
+  return { period, preset, label, pick, from, setFrom, to, setTo, errors, apply };
+}
+type PeriodChoice = ReturnType<typeof usePeriodChoice>;
+
+function PeriodChooser({ choice }: { choice: PeriodChoice }) {
+  const t = useTheme();
   return (
     <View style={{ gap: t.space.sm }}>
-      <Choice label="Period" options={presets} value={preset} onChange={pick} />
-      {preset === 'custom' ? (
+      <Choice label="Period" options={presets} value={choice.preset} onChange={choice.pick} />
+      {choice.preset === 'custom' ? (
         <Row wrap style={{ alignItems: 'flex-end' }}>
           <View style={{ flexGrow: 1, minWidth: 140 }}>
-            <TextField label="From" value={from} onChangeText={setFrom} error={errors.from} inputMode="numeric" mono />
+            <TextField label="From" value={choice.from} onChangeText={choice.setFrom} error={choice.errors.from} inputMode="numeric" mono />
           </View>
           <View style={{ flexGrow: 1, minWidth: 140 }}>
-            <TextField label="To" value={to} onChangeText={setTo} error={errors.to} inputMode="numeric" mono />
+            <TextField label="To" value={choice.to} onChangeText={choice.setTo} error={choice.errors.to} inputMode="numeric" mono />
           </View>
-          <Button label="Show period" kind="secondary" onPress={apply} />
+          <Button label="Show period" kind="secondary" onPress={choice.apply} />
         </Row>
       ) : null}
     </View>
@@ -298,27 +307,55 @@ function DigestButton() {
   );
 }
 
+function PlatformChooser({ platforms, value, onChange }: { platforms: PatternsResponse['platforms'] | undefined; value: string; onChange: (v: string) => void }) {
+  if (!platforms?.length) return null;
+  return <Choice label="Platform" options={[{ value: 'all', label: 'All platforms' }, ...platforms.map((p) => ({ value: String(p.id), label: p.label }))]} value={value} onChange={onChange} />;
+}
+
 export function PatternsScreen() {
   const t = useTheme();
   const { user } = useSession();
-  const [period, setPeriod] = useState(() => defaultPeriod(dayOf(new Date())));
+  const { isWide } = useBreakpoint();
+  const choice = usePeriodChoice();
+  const { period } = choice;
   const [platformId, setPlatformId] = useState<string>('all');
+  const [sheet, setSheet] = useState(false);
   const query: PeriodQuery = { ...period, platformId: platformId === 'all' ? null : Number(platformId) };
   const { data, error, mutate } = usePatterns(user ? query : null);
+  const platformLabel = platformId === 'all' ? 'All platforms' : (data?.platforms.find((p) => String(p.id) === platformId)?.label ?? 'One platform');
+  const range = (
+    <Text variant="small" tone="slate">
+      {longDay(period.from)} to {longDay(period.to)}, both days included.
+    </Text>
+  );
+  // A phone shows the figures first: the period and platform sit behind one button.
+  const filters = isWide ? (
+    <Card style={{ gap: t.space.md }}>
+      <PeriodChooser choice={choice} />
+      <PlatformChooser platforms={data?.platforms} value={platformId} onChange={setPlatformId} />
+      {range}
+    </Card>
+  ) : (
+    <View style={{ gap: t.space.xs }}>
+      <Row wrap style={{ justifyContent: 'space-between' }}>
+        <Text weight="semibold" style={{ flexShrink: 1 }}>
+          {choice.label} · {platformLabel}
+        </Text>
+        <Button label="Change" kind="secondary" compact icon="filter" onPress={() => setSheet(true)} />
+      </Row>
+      {range}
+      <Sheet open={sheet} title="Period and platform" onClose={() => setSheet(false)} footer={<Button label="Show figures" onPress={() => setSheet(false)} />}>
+        <PeriodChooser choice={choice} />
+        <PlatformChooser platforms={data?.platforms} value={platformId} onChange={setPlatformId} />
+      </Sheet>
+    </View>
+  );
   return (
     <Screen>
       <Heading>Shop patterns</Heading>
       <Text tone="slate">Which faults come back, on which platforms, which fixes hold, and what waits for review. Drafts do not count.</Text>
       {user && allows(user, 'digest.send') ? <DigestButton /> : null}
-      <Card style={{ gap: t.space.md }}>
-        <PeriodChooser onChange={setPeriod} />
-        {data && data.platforms.length > 0 ? (
-          <Choice label="Platform" options={[{ value: 'all', label: 'All platforms' }, ...data.platforms.map((p) => ({ value: String(p.id), label: p.label }))]} value={platformId} onChange={setPlatformId} />
-        ) : null}
-        <Text variant="small" tone="slate">
-          {longDay(period.from)} to {longDay(period.to)}, both days included.
-        </Text>
-      </Card>
+      {filters}
       <Loaded data={data} error={error} retry={() => void mutate()} lines={4}>
         {(d) => <Dashboard data={d} query={query} />}
       </Loaded>

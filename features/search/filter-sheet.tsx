@@ -7,6 +7,7 @@ import { usePlatforms } from '../platforms/api';
 import { useBreakpoint, useTheme } from '../theme/use-theme';
 import { Button } from '../ui/button';
 import { Choice } from '../ui/choice';
+import { Sheet } from '../ui/sheet';
 import { Row } from '../ui/surfaces';
 import { Heading, Text } from '../ui/text';
 import { TextField } from '../ui/text-field';
@@ -29,29 +30,18 @@ export function FilterSheet({ open, value, onApply, onClose }: { open: boolean; 
   const platformOptions = [{ value: ANY, label: 'Any platform' }, ...(data?.platforms ?? []).map((p) => ({ value: String(p.id), label: `${p.make} ${p.model} ${p.engine}` }))];
   const statusOptions = [{ value: ANY, label: 'Any status' }, ...caseStatuses.map((s) => ({ value: s, label: statusLabel[s].label }))];
   return (
-    <Modal visible={open} transparent animationType="slide" onRequestClose={onClose} onShow={() => setDraft(value)}>
-      <Pressable accessibilityLabel="Close filters" onPress={onClose} style={{ flex: 1, backgroundColor: t.colour.overlay }} />
-      <View
-        role="dialog"
-        aria-label="Filters"
-        style={{
-          position: 'absolute',
-          bottom: 0,
-          left: 0,
-          right: 0,
-          maxHeight: '85%',
-          alignSelf: 'center',
-          width: '100%',
-          maxWidth: isWide ? t.layout.readingWidth : undefined,
-          backgroundColor: t.colour.card,
-          borderTopLeftRadius: t.radius.lg,
-          borderTopRightRadius: t.radius.lg,
-          padding: t.space.lg,
-          gap: t.space.md,
-        }}
-      >
-        <Heading level={2}>Filters</Heading>
-        <ScrollView contentContainerStyle={{ gap: t.space.md }}>
+    <Sheet
+      open={open}
+      title="Filters"
+      onClose={onClose}
+      onShow={() => setDraft(value)}
+      footer={
+        <Row>
+          <Button label="Show results" grow onPress={() => onApply(draft)} />
+          <Button label="Clear" kind="secondary" onPress={() => onApply({})} />
+        </Row>
+      }
+    >
           <Choice label="Status" options={statusOptions} value={draft.status ?? ANY} onChange={set('status')} />
           <Choice label="Platform" options={platformOptions} value={draft.platformId ?? ANY} onChange={set('platformId')} />
           <TextField label="Code" value={draft.code ?? ''} onChangeText={set('code')} autoCapitalize="characters" placeholder="P0302" mono />
@@ -59,12 +49,6 @@ export function FilterSheet({ open, value, onApply, onClose }: { open: boolean; 
           <Text variant="small" tone="slate">
             Filters keep only matching cases; the words you typed still decide the order.
           </Text>
-        </ScrollView>
-        <Row>
-          <Button label="Show results" grow onPress={() => onApply(draft)} />
-          <Button label="Clear" kind="secondary" onPress={() => onApply({})} />
-        </Row>
-      </View>
-    </Modal>
+    </Sheet>
   );
 }

@@ -60,6 +60,9 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('patterns dashboard at %
     // the default period is the last 90 days; the demo has one comeback in it (0040 -> 0044, U0100)
     await page.getByText('Came back as:').first().waitFor();
     await screenshot(page, `patterns-${viewport}`);
+    // the answer comes first: the first figure sits inside the first screen, filters do not push it down
+    const figure = await page.getByText('Confirmed-fix rate').boundingBox();
+    expect(figure!.y + figure!.height).toBeLessThan(VIEWPORTS[viewport].height);
     expect(await overflowing(page)).toEqual([]);
     expect(await clippedCharts(page)).toEqual([]);
     // The page scrolls inside the app's scroll view; a tall window shows all of it at the same width.
@@ -75,7 +78,14 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('patterns dashboard at %
 
   it('switches to the last 365 days and shows all four demo comebacks', async () => {
     const { page, problems, context } = await openDashboard(viewport);
+    // on a phone the period and platform sit in a sheet behind one button
+    if (viewport === 'phone') await page.getByRole('button', { name: 'Change' }).click();
     await page.getByRole('radio', { name: /Last 365 days/ }).click();
+    if (viewport === 'phone') {
+      await screenshot(page, 'patterns-sheet-phone');
+      await page.getByRole('button', { name: 'Show figures' }).click();
+    }
+    await page.getByText('Last 365 days · All platforms').or(page.getByRole('radio', { name: /Last 365 days/ })).first().waitFor();
     await page.waitForFunction(() => document.querySelectorAll('body').length > 0 && (document.body.innerText.match(/Came back as:/g) ?? []).length === 4);
     await page.getByRole('heading', { name: 'Comebacks', exact: true }).scrollIntoViewIfNeeded();
     await screenshot(page, `patterns-comebacks-${viewport}`);
