@@ -3,7 +3,7 @@
 import { useMemo, type ReactNode } from 'react';
 import { Image, Linking, View } from 'react-native';
 import Markdown, { renderRules as packageRules, type ASTNode, type RenderRules } from 'react-native-markdown-display';
-import { boundNoteNesting, nestingNotice } from '../../shared/markdown/nesting';
+import { boundNote } from '../../shared/markdown/bound-note';
 import { useTheme, type Theme } from '../theme/use-theme';
 import { Notice } from '../ui/notice';
 import { Text } from '../ui/text';
@@ -120,9 +120,9 @@ export function MarkdownView({ body, attachments = [] }: { body: string; attachm
   const ids = useMemo(() => new Set(attachments.map((a) => a.id)), [attachments]);
   const style = useMemo(() => noteStyles(t), [t.scheme]); // eslint-disable-line react-hooks/exhaustive-deps
   const renderRules = useMemo(() => rules(t, ids), [t.scheme, ids]); // eslint-disable-line react-hooks/exhaustive-deps
-  // The same nesting bound as the server's reading of the note: deep nesting would freeze the page.
-  const bounded = useMemo(() => boundNoteNesting(body), [body]);
-  const notice = nestingNotice(bounded);
+  // The same bounds as the server's reading of the note: deep nesting or thousands of '[' would freeze the page.
+  const bounded = useMemo(() => boundNote(body), [body]);
+  const notice = bounded.notice;
   if (!body.trim()) return <Text tone="slate">Nothing written yet.</Text>;
   return (
     <View style={{ maxWidth: t.layout.readingWidth, gap: notice ? t.space.md : 0 }}>

@@ -1,12 +1,14 @@
 // Reads a case note: the trouble codes it mentions, readings with units and its headings. The note
 // itself is stored as written; rendering is the client's job. The note is first bounded in nesting
-// (shared/markdown/nesting.ts) and then read with markdown-it, whose block and inline passes are
-// linear in the note's length, so no note can hold the request thread for long (issue 15: remark
-// took seconds on nested lists and overflowed the stack on 4,000 '>').
+// and in link openers per paragraph (shared/markdown/bound-note.ts), then read with markdown-it,
+// whose passes are then linear in the note's length, so no note can hold the request thread for
+// long (issue 15: remark took seconds on nested lists and overflowed the stack on 4,000 '>';
+// markdown-it took a minute on "[a](" x 50,000).
 import MarkdownIt from 'markdown-it';
 import type { Token } from 'markdown-it';
 import { findDtcsInText } from '../../shared/codes';
-import { boundNoteNesting, nestingNotice, NOTE_MAX_NESTING } from '../../shared/markdown/nesting';
+import { boundNote } from '../../shared/markdown/bound-note';
+import { NOTE_MAX_NESTING } from '../../shared/markdown/nesting';
 import type { NoteExtract } from '../../shared/schemas/cases';
 import { findMeasurements } from '../../shared/units';
 
@@ -43,7 +45,7 @@ function readBlocks(tokens: Token[]) {
 }
 
 export function extractFromNote(body: string, caseCodes: string[] = []): NoteExtract {
-  const bounded = boundNoteNesting(body);
+  const bounded = boundNote(body);
   const { runs, headings } = readBlocks(parser.parse(bounded.text, {}));
   const codes = [...new Set(runs.flatMap((r) => findDtcsInText(r).map((d) => d.full)))];
   const known = new Set(caseCodes.flatMap((c) => [c, c.slice(0, 5)]));
@@ -52,6 +54,6 @@ export function extractFromNote(body: string, caseCodes: string[] = []): NoteExt
     suggestedCodes: codes.filter((c) => !known.has(c) && !known.has(c.slice(0, 5))),
     measurements: runs.flatMap((r) => findMeasurements(r)).map((m) => ({ value: m.value, unit: m.unit, raw: m.raw })),
     headings,
-    markdownNotice: nestingNotice(bounded),
+    markdownNotice: bounded.notice,
   };
 }

@@ -74,38 +74,60 @@ function cutLine(line: string, p: LinePrefix, maxDepth: number): string {
 }
 
 /** Fence tracking, so lines inside a fenced code block are never touched (CommonMark §4.5, simplified). */
-function fenceOf(line: string, p: LinePrefix): string | null {
+function fenceOf(line: string, p: LinePrefix = readPrefix(line)): string | null {
   if (!p.markerEnds.length && p.indent >= 4) return null; // indented code, not a fence
   const start = p.markerEnds.length ? p.markerEnds[p.markerEnds.length - 1]! : p.indentEnd;
   return FENCE.exec(line.slice(start).trimStart())?.[1] ?? null;
 }
 
-export function boundNoteNesting(body: string, maxDepth = NOTE_MAX_NESTING): BoundedNote {
+const closesFence = (open: string, fence: string | null) => !!fence && fence[0] === open[0] && fence.length >= open.length;
+
+/** Calls `visit` for every line outside fenced code blocks; `visit` may return a replacement line. */
+export function eachLineOutsideFences(body: string, visit: (line: string, index: number) => string | void): string {
   const lines = body.split('\n');
-  let cutLines = 0;
-  let deepest = 0;
   let openFence: string | null = null;
+  let changed = false;
   for (let n = 0; n < lines.length; n++) {
-    const line = lines[n]!;
-    const prefix = readPrefix(line);
-    const fence = fenceOf(line, prefix);
+    const fence = fenceOf(lines[n]!);
     if (openFence) {
-      if (fence && fence[0] === openFence[0] && fence.length >= openFence.length) openFence = null;
+      if (closesFence(openFence, fence)) openFence = null;
       continue;
     }
     if (fence) openFence = fence;
+    const replaced = visit(lines[n]!, n);
+    if (replaced !== undefined && replaced !== lines[n]) {
+      lines[n] = replaced;
+      changed = true;
+    }
+  }
+  return changed ? lines.join('\n') : body;
+}
+
+export function boundNoteNesting(body: string, maxDepth = NOTE_MAX_NESTING): BoundedNote {
+  let cutLines = 0;
+  let deepest = 0;
+  const text = eachLineOutsideFences(body, (line) => {
+    const prefix = readPrefix(line);
     const depth = depthOf(prefix);
     deepest = Math.max(deepest, depth);
-    if (depth <= maxDepth) continue;
-    lines[n] = cutLine(line, prefix, maxDepth);
+    if (depth <= maxDepth) return;
     cutLines++;
-  }
-  return { text: cutLines ? lines.join('\n') : body, cutLines, deepest };
+    return cutLine(line, prefix, maxDepth);
+  });
+  return { text, cutLines, deepest };
+}
+
+export const STORED_AS_WRITTEN = 'The note is stored as written.';
+
+/** What was cut, in one sentence, or null when nothing was. */
+export function nestingSentence(bound: BoundedNote, maxDepth = NOTE_MAX_NESTING): string | null {
+  if (!bound.cutLines) return null;
+  const lines = bound.cutLines === 1 ? '1 line is' : `${bound.cutLines.toLocaleString('en-GB')} lines are`;
+  return `This note nests lists or quotes ${bound.deepest.toLocaleString('en-GB')} deep; ${lines} shown flattened to ${maxDepth} levels.`;
 }
 
 /** What to tell the reader when a note was cut, or null when it is shown as written. */
 export function nestingNotice(bound: BoundedNote, maxDepth = NOTE_MAX_NESTING): string | null {
-  if (!bound.cutLines) return null;
-  const lines = bound.cutLines === 1 ? '1 line is' : `${bound.cutLines.toLocaleString('en-GB')} lines are`;
-  return `This note nests lists or quotes ${bound.deepest.toLocaleString('en-GB')} deep; ${lines} shown flattened to ${maxDepth} levels. The note is stored as written.`;
+  const sentence = nestingSentence(bound, maxDepth);
+  return sentence && `${sentence} ${STORED_AS_WRITTEN}`;
 }

@@ -65,3 +65,32 @@ describe('a case whose note nests lists or quotes thousands deep', () => {
     expect(res.body.case.extracted.codes).toEqual(['P0171']);
   });
 });
+
+// markdown-it 10 scans from every unclosed '[' to the end of its paragraph: "[a](" x 50,000 took
+// about a minute per read before shared/markdown/link-openers.ts (measured 63 s on this machine).
+const bracketNotes: [string, string][] = [
+  ['"[a](" x 50,000 (the reported note)', '[a]('.repeat(50_000)],
+  ['"![a](" up to the note limit', upToLimit('![a](', ' P0301 after')],
+  ['"[" up to the note limit', upToLimit('[', ' P0301 after')],
+];
+
+describe('a case whose note holds tens of thousands of unclosed link brackets', () => {
+  for (const [name, body] of bracketNotes) {
+    it(`stays openable for every viewer, says what was shown as text and answers /api/health: ${name}`, async () => {
+      const created = await apprentice.agent.post('/api/cases').set('X-CSRF-Token', apprentice.csrf).send({ title: 'Bracket note', body });
+      expect(created.status).toBe(201);
+      const [own, other, health] = await Promise.all([
+        apprentice.agent.get(`/api/cases/${created.body.id}`),
+        senior.agent.get(`/api/cases/${created.body.id}`),
+        request(t.app).get('/api/health'),
+      ]);
+      expect(health.status).toBe(200);
+      for (const res of [own, other]) {
+        expect(res.status).toBe(200);
+        expect(res.body.case.body).toBe(body);
+        expect(res.body.case.markdownNotice).toMatch(/shown as plain text\. The note is stored as written\.$/);
+      }
+      if (body.includes('P0301')) expect(own.body.case.extracted.codes).toEqual(['P0301']);
+    });
+  }
+});
