@@ -1,7 +1,6 @@
 // npm run bench:load [-- --seconds 60 --connections 50]
 // 60 s of mixed traffic on loopback against a real server process over the demo data:
 // sign-in, search, read case, save draft, mark walk steps. Prints errors, latency and throughput.
-import { spawn } from 'node:child_process';
 import path from 'node:path';
 import autocannon from 'autocannon';
 import mysql from 'mysql2/promise';
@@ -10,6 +9,7 @@ import { ensureAppDatabase, startLocalServer } from '../../db/local-server';
 import { loadConfig } from '../config';
 import { DEMO_PASSWORD, readDemoShop } from '../seed/demo-files';
 import { seedDemoShop } from '../seed/seed';
+import { benchProductionSettings, startServeProcess } from './serve-process';
 
 const arg = (name: string, fallback: number) => {
   const i = process.argv.indexOf(`--${name}`);
@@ -17,7 +17,6 @@ const arg = (name: string, fallback: number) => {
 };
 const SECONDS = arg('seconds', 60);
 const CONNECTIONS = arg('connections', 50);
-const PORT = 8096;
 const DB_NAME = 'cw_bench_load';
 
 const base = loadConfig();
@@ -34,13 +33,9 @@ await applyMigrations(database.db);
 await seedDemoShop(database.db, root);
 await database.close();
 
-const server = spawn(path.join(root, 'node_modules/.bin/tsx'), ['server/cli/serve.ts'], {
-  cwd: root,
-  env: { ...process.env, DB_NAME, PORT: String(PORT), LOG_LEVEL: 'warn', AUTH_LIMIT_PER_ADDRESS: '1000000', NODE_ENV: 'production' },
-  stdio: ['ignore', 'pipe', 'inherit'],
-});
-await new Promise<void>((resolve) => server.stdout!.on('data', (d: Buffer) => d.toString().includes('listening') && resolve()));
-const url = `http://127.0.0.1:${PORT}`;
+// production settings over the demo data (so demo mode stays on explicitly), stopped on every exit path
+const server = await startServeProcess(root, { ...benchProductionSettings(config.db.password, { demoData: true }), DB_NAME, LOG_LEVEL: 'warn', AUTH_LIMIT_PER_ADDRESS: '1000000' });
+const url = server.url;
 
 // Each demo user gets a walk to mark and a list of cases to read.
 const people = readDemoShop(path.join(root, 'content')).users;
@@ -119,7 +114,7 @@ const result = await new Promise<autocannon.Result>((resolve, reject) => {
   const instance = autocannon({ url, connections: CONNECTIONS, duration: SECONDS, requests: cycle }, (err, r) => (err ? reject(err) : resolve(r)));
   instance.on('response', (_client: unknown, _status: number, _bytes: number, ms: number) => latencies.push(ms));
 });
-server.kill('SIGTERM');
+await server.stop();
 latencies.sort((a, b) => a - b);
 const pct = (p: number) => latencies[Math.min(latencies.length - 1, Math.floor((p / 100) * latencies.length))]?.toFixed(1) ?? '-';
 

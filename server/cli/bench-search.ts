@@ -3,7 +3,6 @@
 // same corpus measures (a) a raw minisearch baseline (title, body, tags, codes;
 // fuzzy 0.2 + prefix, OR), (b) Causeway's search service in process, and
 // (c) GET /api/search over HTTP with autocannon, signed in. Prints one table.
-import { spawn } from 'node:child_process';
 import { createRequire } from 'node:module';
 import path from 'node:path';
 import { performance } from 'node:perf_hooks';
@@ -24,6 +23,7 @@ import { createMailer } from '../mail/mailer';
 import { SearchService } from '../search/service';
 import { readDemoPlatforms } from '../seed/demo-files';
 import { BENCH_QUERIES, generateCase, mulberry32 } from '../search/bench-corpus';
+import { benchProductionSettings, startServeProcess } from './serve-process';
 
 // autocannon ships no types: the part used here
 interface CannonResult {
@@ -149,39 +149,30 @@ async function timeQueries(run: (q: string) => Promise<unknown> | unknown): Prom
   return times.sort((a, b) => a - b);
 }
 
-const HTTP_PORT = 8097;
-
 /** Starts server/cli/serve.ts on the bench database and waits until its index is built. */
-async function startBenchServer(root: string): Promise<{ base: string; stop: () => Promise<void> }> {
-  const child = spawn(path.join(root, 'node_modules/.bin/tsx'), ['server/cli/serve.ts'], {
-    cwd: root,
-    env: { ...process.env, DB_NAME, PORT: String(HTTP_PORT), LOG_LEVEL: 'warn', NODE_ENV: 'production', AUTH_LIMIT_PER_ADDRESS: '100000' },
-    stdio: ['ignore', 'pipe', 'inherit'],
-  });
-  const exited = new Promise<void>((resolve) => child.once('exit', () => resolve()));
-  await new Promise<void>((resolve, reject) => {
-    child.stdout!.on('data', (d: Buffer) => d.toString().includes('listening') && resolve());
-    child.once('exit', (code) => reject(new Error(`bench: server exited (${code}) before listening`)));
-  });
-  const base = `http://127.0.0.1:${HTTP_PORT}`;
-  // ready when its index holds the corpus; a poll that fails (a busy server dropping an idle
-  // keep-alive socket) is simply tried again
+async function startBenchServer(root: string, dbPassword: string): Promise<{ base: string; stop: () => Promise<void> }> {
+  const server = await startServeProcess(root, { ...benchProductionSettings(dbPassword, { demoData: false }), DB_NAME, LOG_LEVEL: 'warn', AUTH_LIMIT_PER_ADDRESS: '100000' });
+  const base = server.url;
+  try {
+    await waitForIndex(base);
+  } catch (err) {
+    await server.stop();
+    throw err;
+  }
+  return { base, stop: server.stop };
+}
+
+/** Ready when its index holds the corpus; a poll that fails (a busy server dropping an idle keep-alive socket) is tried again. */
+async function waitForIndex(base: string) {
   const deadline = Date.now() + 180_000;
   for (;;) {
     const health = await fetch(`${base}/api/health`)
       .then((r) => r.json() as Promise<{ index: { state: string; cases: number } }>)
       .catch(() => null);
-    if (health?.index.state === 'ready' && health.index.cases >= N) break;
+    if (health?.index.state === 'ready' && health.index.cases >= N) return;
     if (Date.now() > deadline) throw new Error('bench: the server did not finish its index in 3 minutes');
     await new Promise((r) => setTimeout(r, 250));
   }
-  return {
-    base,
-    stop: async () => {
-      child.kill('SIGTERM');
-      await exited;
-    },
-  };
 }
 
 async function signIn(base: string): Promise<string> {
@@ -200,8 +191,8 @@ async function signIn(base: string): Promise<string> {
   return sessionCookie;
 }
 
-async function measureHttp(root: string): Promise<{ result: CannonResult; times: number[] }> {
-  const server = await startBenchServer(root);
+async function measureHttp(root: string, dbPassword: string): Promise<{ result: CannonResult; times: number[] }> {
+  const server = await startBenchServer(root, dbPassword);
   try {
     const cookie = await signIn(server.base);
     // warm-up, as for (b): the worker's code is compiled while it serves the first queries
@@ -242,7 +233,7 @@ async function main() {
   const database = await prepareDatabase(config);
   if (HTTP_ONLY) {
     await database.close();
-    console.log(httpTable(await measureHttp(config.root)).join('\n'));
+    console.log(httpTable(await measureHttp(config.root, config.db.password)).join('\n'));
     return;
   }
   const db = database.db;
@@ -293,7 +284,7 @@ async function main() {
 
   // (c) HTTP, signed in, through the full middleware stack, in a server process of its own
   // (as deployed: the load generator must not share the server's event loop)
-  const http = await measureHttp(config.root);
+  const http = await measureHttp(config.root, config.db.password);
 
   const a95 = pct(timesA, 95);
   const b95 = pct(timesB, 95);
