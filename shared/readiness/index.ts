@@ -1,0 +1,4 @@
+export * from './monitors';
+export * from './read-text';
+export * from './verdict';
+export * from './view';
