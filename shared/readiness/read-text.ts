@@ -42,8 +42,10 @@ export function parseMonitorBytes(input: string): ReadinessReadout {
   const bad = /[^0-9a-f]/i.exec(compact);
   if (bad) throw new ReadinessDecodeError(`"${bad[0]}" is not a hex digit (0-9, A-F)`);
   if (compact.length % 2 !== 0) throw new ReadinessDecodeError('odd number of hex digits: each byte is two digits');
-  if (compact.length !== 8) throw new ReadinessDecodeError('expected 4 bytes (A B C D) or an answer starting 41 01 followed by 4 bytes');
-  return decodeMonitorStatus(hexBytes(compact));
+  // One answer split oddly ('41018 10F8300') still reads once the spaces are gone.
+  const data = compact.length === 12 && /^4101/.test(compact) ? compact.slice(4) : compact;
+  if (data.length !== 8) throw new ReadinessDecodeError('expected 4 bytes (A B C D) or an answer starting 41 01 followed by 4 bytes');
+  return decodeMonitorStatus(hexBytes(data));
 }
 
 // ---------- printed monitor tables

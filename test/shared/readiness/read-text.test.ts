@@ -10,7 +10,7 @@ const state = (text: string) => {
 };
 
 describe('PID $01 answers in hex', () => {
-  it.each(['41 01 00 07 65 04', '4101 00076504', '41010007 6504', '00 07 65 04', '00076504'])('reads %s', (input) => {
+  it.each(['41 01 00 07 65 04', '4101 00076504', '41010 0076504', '41010007 6504', '00 07 65 04', '00076504'])('reads %s', (input) => {
     const r = parseMonitorBytes(input);
     expect(r).toMatchObject({ mil: false, confirmedCodes: 0, ignition: 'spark' });
     expect(r.monitors.find((m) => m.key === 'evap')).toMatchObject({ supported: true, complete: false });
