@@ -16,6 +16,7 @@ import { Heading, Text } from '../ui/text';
 import { TextField } from '../ui/text-field';
 import { readPastedReport, readUploadedReport } from './api';
 import { pickTextFile } from './pick-file';
+import { ReadinessCard } from '../readiness/readiness-card';
 
 type Status = NonNullable<ScanReportView['codes'][number]['status']>;
 const statusWords: Record<Status, { label: string; symbol: string; tone: ColourName }> = {
@@ -106,6 +107,15 @@ function Found({ report }: { report: ScanReportView }) {
           )}
         </Text>
       </Card>
+      {report.readiness ? (
+        <Card aria-label="Emissions readiness">
+          <Heading level={2}>Emissions readiness</Heading>
+          <ReadinessCard answer={report.readiness} />
+          <Text variant="small" tone="slate">
+            To keep this with the job, paste the same printout into the readiness panel of the case.
+          </Text>
+        </Card>
+      ) : null}
       <Row wrap>
         <Button label="Start a case" icon="✎" onPress={() => router.push(caseLinkFor(report) as Href)} />
         {report.codes.length ? <Button label="Start a cause walk" icon="→" kind="secondary" onPress={() => router.push(walkLinkFor(report) as Href)} /> : null}

@@ -56,7 +56,7 @@ export function readinessRulesFor(current: ReadinessRule) {
 }
 
 /** The full answer: readout, verdict under the rule, and drive-cycle steps for what is incomplete. */
-export function readinessView(ctx: AppContext, readout: ReadinessReadout, rule: ReadinessRule, modelYear: number | null): ReadinessView {
+export function readinessAnswer(ctx: AppContext, readout: ReadinessReadout, rule: ReadinessRule, modelYear: number | null): ReadinessView {
   const assessment = assessReadiness(readout, rule, modelYear);
   return { ...assessment, nextSteps: nextSteps(assessment.incomplete, driveCycleGuide(ctx.config.root)) };
 }
@@ -74,7 +74,7 @@ export function readBytes(bytes: string, field = 'bytes'): ReadinessReadout {
 }
 
 export async function decodeForShop(ctx: AppContext, actor: Actor, bytes: string, modelYear: number | undefined): Promise<ReadinessView> {
-  return readinessView(ctx, readBytes(bytes), await shopReadinessRule(ctx, actor.shopId), modelYear ?? null);
+  return readinessAnswer(ctx, readBytes(bytes), await shopReadinessRule(ctx, actor.shopId), modelYear ?? null);
 }
 
 // ---------- snapshots
@@ -153,7 +153,7 @@ async function snapshotsOfCases(ctx: AppContext, actor: Actor, visible: { id: nu
       label: snapshot.label,
       takenAt: snapshot.createdAt.toISOString(),
       takenBy,
-      readiness: readinessView(ctx, readout, rule, snapshot.modelYear),
+      readiness: readinessAnswer(ctx, readout, rule, snapshot.modelYear),
       change: before ? compareReadouts(before, readout) : null,
     };
   });

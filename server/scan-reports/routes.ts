@@ -4,7 +4,7 @@ import { scanReportBodySchema } from '../../shared/schemas/codes';
 import type { AppContext } from '../context';
 import { badRequest, HttpError } from '../http/errors';
 import { can } from '../http/guard';
-import { modelYearOfVin, readinessView, shopReadinessRule } from '../readiness/service';
+import { modelYearOfVin, readinessAnswer, shopReadinessRule } from '../readiness/service';
 import { readScanReport, type ReadinessJudge, SCAN_UPLOAD_LIMIT, textOfUpload } from './service';
 
 const upload = multer({ storage: multer.memoryStorage(), limits: { fileSize: SCAN_UPLOAD_LIMIT, files: 1, fields: 5, fieldSize: SCAN_UPLOAD_LIMIT } });
@@ -27,7 +27,7 @@ export function scanReportRoutes(ctx: AppContext) {
 
   r.post('/scan-reports', can('cases.write'), fileUpload, async (req, res) => {
     const rule = await shopReadinessRule(ctx, req.user!.shopId);
-    const judge: ReadinessJudge = (readout, vin) => readinessView(ctx, readout, rule, modelYearOfVin(vin));
+    const judge: ReadinessJudge = (readout, vin) => readinessAnswer(ctx, readout, rule, modelYearOfVin(vin));
     if (req.file) {
       res.json(readScanReport(textOfUpload(req.file.buffer), judge));
       return;

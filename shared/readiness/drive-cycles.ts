@@ -1,5 +1,6 @@
 // The drive-cycle guide (content/readiness/drive-cycles.yaml): what lets each monitor run.
 import { z } from 'zod';
+import { composeCaution } from '../walk/cautions';
 import { monitorDef, monitorKeys, type MonitorState } from './monitors';
 
 export const driveCycleGuideSchema = z.strictObject({
@@ -22,12 +23,12 @@ export interface DriveCycleStep {
   caution: string;
 }
 
-/** Steps for the incomplete monitors the guide knows, in the order given; the road-test caution on each. */
+/** Steps for the incomplete monitors the guide knows, in the order given; the road-test caution on each, deferring once. */
 export function nextSteps(incomplete: readonly Pick<MonitorState, 'key'>[], guide: DriveCycleGuide): DriveCycleStep[] {
   return incomplete.flatMap(({ key }) => {
     const entry = guide.monitors[key];
     if (!entry) return [];
-    const caution = entry.caution ? `${entry.caution} ${guide.roadTestCaution}` : guide.roadTestCaution;
+    const caution = composeCaution([entry.caution, guide.roadTestCaution])!;
     return [{ monitor: key, name: monitorDef(key)?.name ?? key, conditions: entry.conditions, caution }];
   });
 }

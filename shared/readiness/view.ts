@@ -7,9 +7,13 @@ export type Tone = 'ok' | 'warn' | 'bad' | 'muted';
 export interface MonitorRow {
   key: string;
   name: string;
-  kindLabel: string;
-  stateLabel: 'Complete' | 'Incomplete' | 'Not supported';
+  stateLabel: 'Complete' | 'Incomplete';
   tone: Tone;
+}
+
+export interface MonitorGroup {
+  title: string;
+  rows: MonitorRow[];
 }
 
 export interface ReadinessView {
@@ -19,19 +23,23 @@ export interface ReadinessView {
   milTone: Tone;
   codesLabel: string | null;
   ignitionLabel: string;
+  ruleName: string;
   ruleLine: string;
-  rows: MonitorRow[];
+  /** supported monitors, non-continuous (the ones a rule counts) first, incomplete on top */
+  groups: MonitorGroup[];
+  /** monitors the car does not report as supported (or a printed table did not list) */
+  notSupported: string[];
 }
 
 function monitorRow(m: MonitorState): MonitorRow {
-  const kindLabel = m.kind === 'continuous' ? 'continuous' : 'non-continuous';
-  if (!m.supported) return { key: m.key, name: m.name, kindLabel, stateLabel: 'Not supported', tone: 'muted' };
-  if (m.complete) return { key: m.key, name: m.name, kindLabel, stateLabel: 'Complete', tone: 'ok' };
-  return { key: m.key, name: m.name, kindLabel, stateLabel: 'Incomplete', tone: 'warn' };
+  return m.complete ? { key: m.key, name: m.name, stateLabel: 'Complete', tone: 'ok' } : { key: m.key, name: m.name, stateLabel: 'Incomplete', tone: 'warn' };
 }
 
-/** Supported monitors first (incomplete on top), unsupported last: what the tech acts on comes first. */
-const rank = (r: MonitorRow) => (r.stateLabel === 'Incomplete' ? 0 : r.stateLabel === 'Complete' ? 1 : 2);
+/** Incomplete on top: what the tech acts on comes first. */
+function group(title: string, monitors: MonitorState[]): MonitorGroup[] {
+  const rows = monitors.map(monitorRow).sort((x, y) => Number(x.stateLabel === 'Complete') - Number(y.stateLabel === 'Complete'));
+  return rows.length ? [{ title, rows }] : [];
+}
 
 function headline(a: ReadinessAssessment): string {
   if (a.verdict.ready) return a.incomplete.length === 0 ? 'Ready: every supported monitor complete' : `Ready under the shop rule, ${a.incomplete.length} incomplete`;
@@ -41,7 +49,7 @@ function headline(a: ReadinessAssessment): string {
 }
 
 export function readinessView(a: ReadinessAssessment): ReadinessView {
-  const rows = a.monitors.map(monitorRow).sort((x, y) => rank(x) - rank(y));
+  const supported = a.monitors.filter((m) => m.supported);
   return {
     headline: headline(a),
     tone: a.verdict.ready ? 'ok' : a.mil === true ? 'bad' : 'warn',
@@ -49,8 +57,13 @@ export function readinessView(a: ReadinessAssessment): ReadinessView {
     milTone: a.mil === null ? 'muted' : a.mil ? 'bad' : 'ok',
     codesLabel: a.confirmedCodes === null ? null : `${a.confirmedCodes} confirmed ${a.confirmedCodes === 1 ? 'code' : 'codes'}`,
     ignitionLabel: a.ignition === 'spark' ? 'Spark ignition' : 'Compression ignition',
-    ruleLine: `Rule: ${a.verdict.rule.name}. ${a.verdict.rule.summary}`,
-    rows,
+    ruleName: `Rule: ${a.verdict.rule.name}`,
+    ruleLine: a.verdict.rule.summary,
+    groups: [
+      ...group('Non-continuous monitors (counted by the rule)', supported.filter((m) => m.kind === 'non-continuous')),
+      ...group('Continuous monitors', supported.filter((m) => m.kind === 'continuous')),
+    ],
+    notSupported: a.monitors.filter((m) => !m.supported).map((m) => m.name),
   };
 }
 

@@ -5,15 +5,17 @@ import { assessReadiness, compareReadouts, decodeMonitorStatus, readinessRule, r
 const rule = readinessRule('us-common');
 
 describe('readinessView', () => {
-  it('puts incomplete monitors first and unsupported ones last', () => {
+  it('groups the counted monitors first with incomplete ones on top, and lists unsupported ones apart', () => {
     const v = readinessView(assessReadiness(decodeMonitorStatus([0, 0x07, 0x65, 0x24]), rule, 2010));
-    expect(v.rows.slice(0, 2).map((r) => [r.name, r.stateLabel])).toEqual([
+    expect(v.groups.map((g) => g.title)).toEqual(['Non-continuous monitors (counted by the rule)', 'Continuous monitors']);
+    expect(v.groups[0]!.rows.map((r) => [r.name, r.stateLabel])).toEqual([
       ['Evaporative system', 'Incomplete'],
       ['Oxygen sensor', 'Incomplete'],
+      ['Catalyst', 'Complete'],
+      ['Oxygen sensor heater', 'Complete'],
     ]);
-    expect(v.rows.at(-1)?.stateLabel).toBe('Not supported');
-    expect(v).toMatchObject({ headline: 'Not ready: 2 incomplete', tone: 'warn', milLabel: 'MIL: off', codesLabel: '0 confirmed codes' });
-    expect(v.ruleLine).toMatch(/^Rule: Common US practice\./);
+    expect(v.notSupported).toEqual(['Heated catalyst', 'Secondary air system', 'A/C refrigerant', 'EGR / VVT system']);
+    expect(v).toMatchObject({ headline: 'Not ready: 2 incomplete', tone: 'warn', milLabel: 'MIL: off', codesLabel: '0 confirmed codes', ruleName: 'Rule: Common US practice' });
   });
 
   it('says MIL on in red', () => {
