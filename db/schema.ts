@@ -30,6 +30,8 @@ export const shops = mysqlTable('shops', {
   name: varchar('name', { length: 120 }).notNull(),
   comebackDays: smallint('comeback_days').notNull().default(90),
   comebackKm: int('comeback_km').notNull().default(3000),
+  /** id of a rule set in shared/readiness/verdict.ts */
+  readinessRule: varchar('readiness_rule', { length: 32 }).notNull().default('us-common'),
   createdAt: createdAt(),
 });
 
@@ -298,4 +300,23 @@ export const digestRuns = mysqlTable(
     createdAt: createdAt(),
   },
   (t) => [index('digest_runs_shop').on(t.shopId, t.createdAt), uniqueIndex('digest_runs_period').on(t.shopId, t.periodKey, t.kind)],
+);
+
+/** Monitor status read on a case (before and after a drive cycle); the verdict is worked out on reading. */
+export const readinessSnapshots = mysqlTable(
+  'readiness_snapshots',
+  {
+    id: id(),
+    shopId: ref('shop_id').notNull().references(() => shops.id),
+    caseId: ref('case_id').notNull().references(() => cases.id),
+    label: varchar('label', { length: 80 }).notNull(),
+    mil: boolean('mil'),
+    confirmedCodes: smallint('confirmed_codes'),
+    ignition: mysqlEnum('ignition', ['spark', 'compression']).notNull(),
+    monitors: json('monitors').$type<{ key: string; supported: boolean; complete: boolean }[]>().notNull(),
+    modelYear: smallint('model_year'),
+    takenById: ref('taken_by_id').notNull().references(() => users.id),
+    createdAt: createdAt(),
+  },
+  (t) => [index('readiness_snapshots_case').on(t.caseId, t.createdAt)],
 );

@@ -30,6 +30,7 @@ import { treeRoutes } from './trees/routes';
 import { codeRoutes, vinRoutes } from './codes/routes';
 import { platformRoutes } from './platforms/routes';
 import { scanReportRoutes } from './scan-reports/routes';
+import { readinessRoutes } from './readiness/routes';
 
 export interface AppOptions {
   ctx: AppContext;
@@ -76,6 +77,7 @@ export function apiRouters(ctx: AppContext) {
     vinRoutes(ctx),
     platformRoutes(ctx),
     scanReportRoutes(ctx),
+    readinessRoutes(ctx),
     patternRoutes(ctx),
     vehicleRoutes(ctx),
     homeRoutes(ctx),

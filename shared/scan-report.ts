@@ -1,7 +1,8 @@
 // Reading what a technician pastes from a scan tool printout: plain text or CSV.
-// Pulls out trouble codes (with FTB and status when stated), the VIN and the
-// odometer reading. Heuristics, each documented beside its rule.
+// Pulls out trouble codes (with FTB and status when stated), the VIN, the
+// odometer reading and monitor status (shared/readiness). Heuristics, each documented beside its rule.
 import { decodeUdsStatus, findDtcMentions, parseDtc, type Dtc } from './codes';
+import { readReadiness, type ReadinessReadout } from './readiness';
 import { checkVin, followsNorthAmericanRules } from './vin';
 
 export type ScanCodeStatus = 'pending' | 'confirmed' | 'permanent' | 'history' | 'active';
@@ -18,6 +19,8 @@ export interface ScanReport {
   codes: ScanCode[];
   vin?: string;
   mileage?: Mileage;
+  /** monitor status: a PID $01 answer or a printed monitor table */
+  readiness?: ReadinessReadout;
 }
 
 export const SCAN_REPORT_MAX_BYTES = 1024 * 1024;
@@ -368,14 +371,16 @@ export function parseScanReport(text: string): ScanReport {
   });
 
   const vin = found.labelledVins.find((v) => /^[A-HJ-NPR-Z0-9]{17}$/.test(v)) ?? found.plainVins[0];
-  if (out.codes.length === 0 && !vin) {
+  const readiness = readReadiness(body);
+  if (out.codes.length === 0 && !vin && !readiness) {
     throw new ScanReportError(
       'nothing-found',
-      'No trouble codes or VIN found. Codes look like P0302 (or P0302-13 with a failure type byte).',
+      'No trouble codes or VIN found, and no monitor status. Codes look like P0302 (or P0302-13 with a failure type byte).',
     );
   }
   const report: ScanReport = { codes: out.codes };
   if (vin) report.vin = vin;
   if (found.mileage) report.mileage = found.mileage;
+  if (readiness) report.readiness = readiness;
   return report;
 }

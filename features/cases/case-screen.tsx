@@ -20,6 +20,7 @@ import { dateTime, statusLabel } from './labels';
 import { RevisionHistory } from './revisions';
 import { TextField } from '../ui/text-field';
 import { BackLink } from '../ui/back-link';
+import { CaseReadinessPanel } from '../readiness/case-readiness-panel';
 
 function CommentForm({ caseId, onAdded }: { caseId: number; onAdded: () => void }) {
   const t = useTheme();
@@ -99,6 +100,7 @@ function CaseBody({ c, onChanged }: { c: CaseDetail; onChanged: (msg: string) =>
           <CaseFacts c={c} />
           <CauseAndFix c={c} />
           <RepeatVisits repeats={c.repeats} />
+          <CaseReadinessPanel caseId={c.id} />
         </View>
       </View>
     );
@@ -109,6 +111,7 @@ function CaseBody({ c, onChanged }: { c: CaseDetail; onChanged: (msg: string) =>
       <CauseAndFix c={c} />
       {gallery}
       <RepeatVisits repeats={c.repeats} />
+      <CaseReadinessPanel caseId={c.id} />
       <CaseActions c={c} onChanged={onChanged} />
       {review}
       <RevisionHistory caseId={c.id} />

@@ -17,6 +17,7 @@ import { TextField } from '../ui/text-field';
 import { readPastedReport, readUploadedReport } from './api';
 import { pickTextFile } from './pick-file';
 import type { IconName } from '../ui/icon';
+import { ReadinessCard } from '../readiness/readiness-card';
 
 type Status = NonNullable<ScanReportView['codes'][number]['status']>;
 const statusWords: Record<Status, { label: string; symbol: IconName; tone: ColourName }> = {
@@ -107,6 +108,15 @@ function Found({ report }: { report: ScanReportView }) {
           )}
         </Text>
       </Card>
+      {report.readiness ? (
+        <Card aria-label="Emissions readiness">
+          <Heading level={2}>Emissions readiness</Heading>
+          <ReadinessCard answer={report.readiness} />
+          <Text variant="small" tone="slate">
+            To keep this with the job, paste the same printout into the readiness panel of the case.
+          </Text>
+        </Card>
+      ) : null}
       <Row wrap>
         <Button label="Start a case" icon="edit" onPress={() => router.push(caseLinkFor(report) as Href)} />
         {report.codes.length ? <Button label="Start a cause walk" icon="next" kind="secondary" onPress={() => router.push(walkLinkFor(report) as Href)} /> : null}

@@ -11,6 +11,7 @@ import { longDay, plural } from '../patterns/format';
 import { useVehicle } from './api';
 import { vehicleName } from './vehicles-screen';
 import { BackLink } from '../ui/back-link';
+import { VehicleReadinessPanel } from '../readiness/vehicle-readiness-panel';
 
 const statusWords = { draft: 'Draft', review: 'In review', published: 'Published' } as const;
 
@@ -85,6 +86,7 @@ export function VehicleScreen() {
                     A comeback is a return with the same code or system within {window.days} days and {window.km.toLocaleString('en-GB')} km of a confirmed fix.
                   </Text>
                 </View>
+                <VehicleReadinessPanel vehicleId={vehicle.id} />
                 {visits.length === 0 ? (
                   <EmptyState title="No visits you can see" hint="Cases for this vehicle are drafts of someone else." />
                 ) : (

@@ -4,7 +4,8 @@ import { scanReportBodySchema } from '../../shared/schemas/codes';
 import type { AppContext } from '../context';
 import { badRequest, HttpError } from '../http/errors';
 import { can } from '../http/guard';
-import { readScanReport, SCAN_UPLOAD_LIMIT, textOfUpload } from './service';
+import { modelYearOfVin, readinessAnswer, shopReadinessRule } from '../readiness/service';
+import { readScanReport, type ReadinessJudge, SCAN_UPLOAD_LIMIT, textOfUpload } from './service';
 
 const upload = multer({ storage: multer.memoryStorage(), limits: { fileSize: SCAN_UPLOAD_LIMIT, files: 1, fields: 5, fieldSize: SCAN_UPLOAD_LIMIT } });
 
@@ -21,18 +22,20 @@ const fileUpload: RequestHandler = (req, res, next) => {
   });
 };
 
-export function scanReportRoutes(_ctx: AppContext) {
+export function scanReportRoutes(ctx: AppContext) {
   const r = Router();
 
-  r.post('/scan-reports', can('cases.write'), fileUpload, (req, res) => {
+  r.post('/scan-reports', can('cases.write'), fileUpload, async (req, res) => {
+    const rule = await shopReadinessRule(ctx, req.user!.shopId);
+    const judge: ReadinessJudge = (readout, vin) => readinessAnswer(ctx, readout, rule, modelYearOfVin(vin));
     if (req.file) {
-      res.json(readScanReport(textOfUpload(req.file.buffer)));
+      res.json(readScanReport(textOfUpload(req.file.buffer), judge));
       return;
     }
     // A multipart form may carry the text in a "text" field instead of a file.
     const body = scanReportBodySchema.safeParse(req.body ?? {});
     if (!body.success) throw badRequest('Paste the report as text, or upload it as a file.', { text: body.error.issues[0]?.message ?? 'Required.' });
-    res.json(readScanReport(body.data.text));
+    res.json(readScanReport(body.data.text, judge));
   });
 
   return r;

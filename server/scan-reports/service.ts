@@ -1,7 +1,9 @@
 // Reading a pasted or uploaded scan tool printout into codes, VIN and mileage.
 import { describeFtb, lookupCodeTitle } from '../../shared/codes';
 import { parseScanReport, SCAN_REPORT_MAX_BYTES, ScanReportError } from '../../shared/scan-report';
+import type { ReadinessReadout } from '../../shared/readiness';
 import type { ScanReportView } from '../../shared/schemas/codes';
+import type { ReadinessView } from '../../shared/schemas/readiness';
 import { checkVin } from '../../shared/vin';
 import { badRequest, HttpError } from '../http/errors';
 
@@ -23,7 +25,10 @@ export function textOfUpload(buf: Buffer): string {
   return new TextDecoder('utf-8').decode(buf);
 }
 
-export function readScanReport(text: string): ScanReportView {
+/** Judges a report's monitor status; the route passes one bound to the shop's rule. */
+export type ReadinessJudge = (readout: ReadinessReadout, vin: string | undefined) => ReadinessView;
+
+export function readScanReport(text: string, judge: ReadinessJudge): ScanReportView {
   let report;
   try {
     report = parseScanReport(text);
@@ -40,6 +45,7 @@ export function readScanReport(text: string): ScanReportView {
     }),
     ...(report.vin ? { vin: report.vin, vinCheck: checkVin(report.vin) } : {}),
     ...(report.mileage ? { mileage: report.mileage } : {}),
+    ...(report.readiness ? { readiness: judge(report.readiness, report.vin) } : {}),
   };
 }
 

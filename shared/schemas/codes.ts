@@ -1,5 +1,6 @@
 // The trouble-code, VIN and scan-report API contract: what clients send and what the server answers.
 import { z } from 'zod';
+import { readinessSchema } from './readiness';
 
 // ---- requests ----
 
@@ -112,5 +113,7 @@ export const scanReportResponseSchema = z.object({
   vin: z.string().optional(),
   vinCheck: vinCheckSchema.optional(),
   mileage: z.object({ value: z.number(), unit: z.enum(['km', 'mi']) }).optional(),
+  /** monitor status when the report holds it (a PID $01 answer or a monitor table) */
+  readiness: readinessSchema.optional(),
 });
 export type ScanReportView = z.infer<typeof scanReportResponseSchema>;

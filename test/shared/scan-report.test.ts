@@ -67,7 +67,14 @@ Odometer;120.332 km
 
 describe('parseScanReport: sample printouts', () => {
   it('reads a one-code-per-line printout with section headers', () => {
-    expect(parseScanReport(onePerLine)).toEqual<ScanReport>({
+    const { readiness, ...rest } = parseScanReport(onePerLine);
+    // the monitor table at the end is the readiness part (shared/readiness)
+    const supported = readiness?.monitors.filter((m) => m.supported).map((m) => [m.key, m.complete]);
+    expect(supported).toEqual([
+      ['misfire', true],
+      ['catalyst', false],
+    ]);
+    expect(rest).toEqual<ScanReport>({
       codes: [
         { code: 'P0302', ftb: '13', status: 'confirmed' },
         { code: 'P0171', status: 'confirmed' },
