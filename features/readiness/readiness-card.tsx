@@ -5,11 +5,12 @@ import type { ReadinessView as ReadinessAnswer } from '../../shared/schemas/read
 import type { ColourName } from '../theme/tokens';
 import { useTheme } from '../theme/use-theme';
 import { Badge, Caution } from '../ui/badges';
+import type { IconName } from '../ui/icon';
 import { Row } from '../ui/surfaces';
 import { Heading, Text } from '../ui/text';
 
 const toneColour: Record<Tone, ColourName> = { ok: 'moss', warn: 'amber', bad: 'brick', muted: 'slate' };
-const toneSymbol: Record<Tone, string> = { ok: '✓', warn: '◔', bad: '●', muted: '–' };
+const toneSymbol: Record<Tone, IconName> = { ok: 'check', warn: 'waiting', bad: 'alert', muted: 'unsupported' };
 
 function MonitorList({ view }: { view: ReturnType<typeof readinessView> }) {
   const t = useTheme();

@@ -55,6 +55,7 @@ export const ICONS = {
   ticked: 'check-square',
   unticked: 'square',
   link: 'external-link',
+  unsupported: 'minus',
 } as const satisfies Record<string, FeatherGlyph>;
 
 export type IconName = keyof typeof ICONS;
