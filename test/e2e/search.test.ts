@@ -12,7 +12,7 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('search home at %s size'
   it('reads the query back as chips, ranks the case with its reasons, and drops a chip', async () => {
     const { page, problems, context } = await openPage(getBrowser(), viewport, baseUrl);
     await signInThroughUi(page, senior.email, DEMO_PASSWORD);
-    await page.getByText('Search the shop’s cases').waitFor();
+    await page.getByRole('heading', { name: 'Waiting for your review' }).waitFor();
     await page.getByText("Try a code like P0302, or 'misfire cyl 2 and 5 after timing work'.").waitFor();
     await screenshot(page, `search-empty-${viewport}`);
 
