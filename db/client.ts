@@ -83,19 +83,24 @@ export const noteWrite = () => {
 const RETRYABLE = new Set(['ER_LOCK_DEADLOCK', 'ER_LOCK_WAIT_TIMEOUT']);
 
 /**
- * Runs a transaction, retrying a few times when InnoDB picks it as a deadlock victim:
- * the usual advice for such errors, and safe because the whole transaction was rolled back.
+ * Runs work, retrying a few times when InnoDB picks it as a deadlock victim: the usual advice
+ * for such errors, and safe when the work is one transaction (it was rolled back whole).
  */
-export async function transaction<T>(db: Db, work: (tx: Db) => Promise<T>, attempts = 4): Promise<T> {
+export async function retryDeadlocks<T>(work: () => Promise<T>, attempts = 4): Promise<T> {
   for (let attempt = 1; ; attempt++) {
     try {
-      const result = await db.transaction((tx) => work(tx as unknown as Db));
-      noteWrite();
-      return result;
+      return await work();
     } catch (err) {
       const code = (err as { cause?: { code?: string }; code?: string }).cause?.code ?? (err as { code?: string }).code;
       if (!code || !RETRYABLE.has(code) || attempt >= attempts) throw err;
       await new Promise((r) => setTimeout(r, 5 * attempt + Math.random() * 20));
     }
   }
+}
+
+/** A transaction retried on deadlock, counted as a local write once it commits. */
+export async function transaction<T>(db: Db, work: (tx: Db) => Promise<T>, attempts = 4): Promise<T> {
+  const result = await retryDeadlocks(() => db.transaction((tx) => work(tx as unknown as Db)), attempts);
+  noteWrite();
+  return result;
 }

@@ -3,7 +3,7 @@
 // database clock, one clock for all instances.
 import { lt, sql } from 'drizzle-orm';
 import type { ClientRateLimitInfo, Options, Store } from 'express-rate-limit';
-import type { Db } from '../../db/client';
+import { retryDeadlocks, type Db } from '../../db/client';
 import { rateLimits } from '../../db/schema';
 
 /** Expired rows are deleted on every this many-th increment of a process. */
@@ -27,7 +27,8 @@ export class MariaDbRateLimitStore implements Store {
     if (++this.increments % PRUNE_EVERY === 0) await this.db.delete(rateLimits).where(lt(rateLimits.resetAt, sql`UTC_TIMESTAMP(3)`));
     const rateKey = this.prefix + key;
     // The insert locks the row until commit, so the count read back is this request's own.
-    return this.db.transaction(async (tx) => {
+    // Concurrent first inserts of one key can deadlock on the key's gap lock: retried.
+    return retryDeadlocks(() => this.db.transaction(async (tx) => {
       await tx.execute(sql`
         INSERT INTO rate_limits (rate_key, hits, reset_at)
         VALUES (${rateKey}, 1, UTC_TIMESTAMP(3) + INTERVAL ${this.windowMs * 1000} MICROSECOND)
@@ -35,7 +36,7 @@ export class MariaDbRateLimitStore implements Store {
           hits = IF(reset_at <= UTC_TIMESTAMP(3), 1, hits + 1),
           reset_at = IF(reset_at <= UTC_TIMESTAMP(3), VALUES(reset_at), reset_at)`);
       return (await readInfo(tx, rateKey))!;
-    });
+    }));
   }
 
   get(key: string): Promise<ClientRateLimitInfo | undefined> {

@@ -1,25 +1,18 @@
 // Broken text at the edge (outside test, issue 15, finding 8): malformed percent-encoding in a path
 // answers 400, and an unpaired UTF-16 surrogate in a JSON string is repaired to U+FFFD before it
 // reaches MariaDB (which refused it, answering 500 and logging the whole walk).
-import { Writable } from 'node:stream';
-import pino from 'pino';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { walkResponseSchema } from '../../shared/schemas/walks';
+import { capturedLog } from '../support/log-capture';
 import { createTestApp, seedShop, signedIn, type TestApp } from '../support/test-app';
 
-const lines: string[] = [];
-const capture = new Writable({
-  write(chunk, _enc, done) {
-    lines.push(...String(chunk).split('\n').filter(Boolean));
-    done();
-  },
-});
+const { lines, log } = capturedLog();
 
 let t: TestApp;
 let tech: Awaited<ReturnType<typeof signedIn>>;
 
 beforeAll(async () => {
-  t = await createTestApp({}, { log: pino({ level: 'info' }, capture) });
+  t = await createTestApp({}, { log });
   const shop = await seedShop(t.ctx, 'Encoding Garage', ['technician']);
   tech = await signedIn(t.app, shop.people.technician.email);
 });

@@ -1,25 +1,18 @@
 // What the request log holds: never a credential (outside test, issue 15, finding 4).
-import { Writable } from 'node:stream';
-import pino from 'pino';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DrizzleQueryError } from 'drizzle-orm';
 import { SESSION_COOKIE } from '../../server/auth/session';
 import { safeLogger } from '../../server/http/safe-log';
+import { capturedLog } from '../support/log-capture';
 import { agentFor, createTestApp, seedShop, TEST_PASSWORD, type TestApp } from '../support/test-app';
 
-const lines: string[] = [];
-const capture = new Writable({
-  write(chunk, _enc, done) {
-    lines.push(...String(chunk).split('\n').filter(Boolean));
-    done();
-  },
-});
+const { lines, log } = capturedLog();
 
 let t: TestApp;
 let shop: Awaited<ReturnType<typeof seedShop>>;
 
 beforeAll(async () => {
-  t = await createTestApp({}, { log: pino({ level: 'info' }, capture) });
+  t = await createTestApp({}, { log });
   shop = await seedShop(t.ctx, 'Log Check Garage', ['technician']);
 });
 afterAll(() => t.close());
@@ -50,18 +43,12 @@ describe('request log', () => {
 
 describe('error log', () => {
   it('keeps a failed query’s SQL but not the values bound to it', () => {
-    const out: string[] = [];
-    const sink = new Writable({
-      write(chunk, _enc, done) {
-        out.push(String(chunk));
-        done();
-      },
-    });
+    const captured = capturedLog();
     const secretHash = '$argon2id$v=19$m=19456,t=2,p=1$c2VjcmV0c2FsdA$c2VjcmV0aGFzaHZhbHVl';
     const cause = Object.assign(new Error("Duplicate entry 'x' for key 'users_email'"), { code: 'ER_DUP_ENTRY', sql: `insert into users values ('${secretHash}')` });
     const failed = new DrizzleQueryError('insert into `users` (`password_hash`) values (?)', [secretHash], cause);
-    safeLogger(pino({ level: 'info' }, sink)).error({ err: failed }, 'unhandled error');
-    const line = out.join('');
+    safeLogger(captured.log).error({ err: failed }, 'unhandled error');
+    const line = captured.lines.join('');
     expect(line).toContain('insert into `users`');
     expect(line).toContain('Duplicate entry');
     expect(line).not.toContain(secretHash);
