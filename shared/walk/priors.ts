@@ -69,7 +69,7 @@ export const PATTERN_PRECEDENCE: MisfirePattern[] = ['both-banks', 'one-bank', '
 /** Replaces a cylinder part's penalty for a spread misfire when the recent work disturbed that part. */
 export const DISTURBED_SCOPE_RULE: ScopeRule = {
   factor: 1,
-  why: 'the work disturbed this on several cylinders at once (a connector crossed or left off), so misfires on more than one cylinder do not make it less likely',
+  why: 'work can cross or loosen this on several cylinders at once, so misfires on more than one cylinder do not make it less likely',
 };
 
 function scopeRule(scope: Scope | undefined, patterns: Set<MisfirePattern>, disturbed: boolean): ScopeRule | undefined {
@@ -91,7 +91,9 @@ export function priorsFor(tree: Tree, ev: WalkEvidence): CausePrior[] {
     .map((cause) => {
       const modifiers = cause.modifiers.filter((m) => conditionHolds(m.when, ev, 'fail'));
       const disturbed = modifiers.some((m) => m.disturbedByWork);
-      const rules = [scopeRule(cause.scope, patterns, disturbed), ...modifiers];
+      const scope = scopeRule(cause.scope, patterns, disturbed);
+      // the work's own reason reads first; the lifted pattern penalty explains itself after it
+      const rules = scope === DISTURBED_SCOPE_RULE ? [...modifiers, scope] : [scope, ...modifiers];
       const fired = rules.filter((r): r is ScopeRule => r !== undefined);
       const factor = fired.reduce((f, r) => f * r.factor, 1);
       const prior: CausePrior = {

@@ -21,6 +21,15 @@ async function startDemoMisfire(page: Page) {
   await page.getByText('Expected time to find it').waitFor();
 }
 
+/** "Seen before on this engine" with demo case 0050, the cause it found, and a link to the case. */
+async function expectPrecedent(page: Page) {
+  await page.getByText('Seen before on this engine').waitFor();
+  const link = page.getByRole('link', { name: 'VT27 misfire cyl 2 and 5 after timing belt job', exact: true });
+  await link.waitFor();
+  expect(await link.getAttribute('href')).toMatch(/^\/cases\/\d+$/);
+  await page.getByText('Found: Coil connector or ignition harness fault').waitFor();
+}
+
 describe('a cause walk on a phone', () => {
   it('walks the demo misfire case to a write-up, one step at a time', async () => {
     const { page, problems, context } = await openPage(getBrowser(), 'phone', baseUrl);
@@ -38,7 +47,10 @@ describe('a cause walk on a phone', () => {
     await page.getByRole('button', { name: 'Start the walk' }).click();
     await page.waitForURL(/\/walks\/\d+$/);
 
-    // the shop has seen exactly this (demo case 0050): the crossed coil connectors come first, with the reason and caution
+    // the shop has seen exactly this (demo case 0050): the walk opens with it...
+    await expectPrecedent(page);
+    await screenshot(page, 'walk-precedent-phone');
+    // ...and the crossed coil connectors come first, with the reason and caution
     const step = page.getByLabel(/^Step: /);
     await step.getByRole('heading', { name: /Coil connector or ignition harness fault/ }).waitFor();
     await step.getByText(/likely now/).waitFor();
@@ -110,6 +122,9 @@ describe('a cause walk on a wide screen', () => {
     await page.getByText(/You are looking over/).waitFor();
     await page.getByText('Ignition', { exact: true }).waitFor();
     await screenshot(page, 'walk-wide');
+    await startDemoMisfire(page);
+    await expectPrecedent(page);
+    await screenshot(page, 'walk-precedent-wide');
     await page.goto('/trees');
     await page.getByRole('heading', { name: 'Cause trees' }).waitFor();
     await page.getByRole('link', { name: 'Engine misfire' }).waitFor();

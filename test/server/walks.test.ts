@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
 import { cases, platforms, walks } from '../../db/schema';
-import { createCase } from '../../server/cases/service';
+import { backfillCauses, createCase } from '../../server/cases/service';
 import { markWalkStep } from '../../server/walks/service';
 import type { SessionUser } from '../../server/auth/session-user';
 import { walkResponseSchema, type WalkResponse } from '../../shared/schemas/walks';
@@ -310,6 +310,32 @@ describe('the learning loop: a case written and confirmed in the app teaches the
     const bad = await senior.agent.patch(`/api/cases/${caseId}`).set('X-CSRF-Token', senior.csrf).send({ cause: 'misfire/no-such-cause', version: edited.body.version });
     expect(bad.status).toBe(400);
     expect(bad.body.error.fields.cause).toMatch(/Pick a cause/);
+  });
+
+  it('lists the shop’s causes for the picker and suggests from an unsaved write-up; malformed input is a 400', async () => {
+    const list = await apprentice.agent.get('/api/cases/causes');
+    expect(list.status).toBe(200);
+    expect(list.body.causes).toContainEqual({ cause: 'misfire/ignition-harness', title: 'Coil connector or ignition harness fault', treeId: 'misfire', treeTitle: 'Engine misfire', system: 'ignition' });
+    const post = (body: object) => apprentice.agent.post('/api/cases/cause-suggestions').set('X-CSRF-Token', apprentice.csrf).send(body);
+    const res = await post({ rootCause: 'Charge pipe coupler split at the intercooler end', codes: ['P0299'], symptoms: [] });
+    expect(res.status).toBe(200);
+    expect(res.body.suggestions[0]).toMatchObject({ cause: 'low-boost/charge-pipe-leak' });
+    expect((await post({ codes: ['not a code'] })).status).toBe(400);
+    expect((await post({ rootCause: 5 })).status).toBe(400);
+  });
+
+  it('backfills cases confirmed before suggestions existed, once, and leaves unclear ones for a person', async () => {
+    const seniorUser = { id: shop.people.senior.id, role: 'senior' as const, shopId: shop.shopId };
+    const old = { confirmation: { byId: seniorUser.id, at: new Date('2026-01-05T10:00:00Z'), note: null } };
+    const clear = await createCase(t.ctx, seniorUser, { title: 'KR15T lean at idle', body: '-', platformId: kr15t, codes: ['P0171'], symptoms: ['rough-idle'], rootCause: 'PCV valve diaphragm split, unmetered air at idle', fix: 'New PCV valve', status: 'published' }, old);
+    const vague = await createCase(t.ctx, seniorUser, { title: 'Came in, went out', body: '-', codes: [], symptoms: [], rootCause: 'Nothing found', fix: 'Road tested', status: 'published' }, old);
+    const first = await backfillCauses(t.ctx);
+    expect(first.linked).toContainEqual({ caseId: clear.id, cause: 'lean/pcv-failed' });
+    expect(first.linked.map((l) => l.caseId)).not.toContain(vague.id);
+    const [row] = await t.ctx.db.select().from(cases).where(eq(cases.id, clear.id));
+    expect(row).toMatchObject({ cause: 'lean/pcv-failed', causeLinkedBy: 'suggestion', version: 2 });
+    const second = await backfillCauses(t.ctx);
+    expect(second.linked.map((l) => l.caseId)).not.toContain(clear.id);
   });
 
   it('links nothing when no suggestion is clearly ahead, and takes a cause given with the confirmation as the author’s', async () => {
