@@ -4,7 +4,7 @@
  *
  * Two signals, multiplied so neither alone decides:
  *   text   the words of the root cause, fix and title against each cause's title, id and
- *          `about`, with the search's tokeniser, stemmer, one-typo match and J1930 terms
+ *          `about`, with the search's tokeniser, stop words, stemmer and J1930 terms
  *          (a write-up saying "MAF" meets a cause titled "air-flow sensor"); each shared
  *          word weighs its inverse document frequency over every cause, so "connector"
  *          counts more than "fault";
@@ -146,15 +146,13 @@ export function suggestCauses(trees: Tree[], text: CaseText, ev: WalkEvidence, l
   const matches = selectTrees(trees, ev);
   const best = matches[0]?.score ?? 0;
   const fit = new Map(matches.map((m) => [m.tree.id, best > 0 ? m.score / best : 0]));
-  const priors = new Map(
-    trees.flatMap((tree) => (fit.has(tree.id) ? priorsFor(tree, ev).map((p) => [p.cause, p.probability] as const) : [])),
-  );
-  const applicable = new Set(trees.flatMap((tree) => priorsFor(tree, ev).map((p) => p.cause)));
+  // priorsFor leaves out the causes that cannot apply to this platform, so the map also filters
+  const priors = new Map(trees.flatMap((tree) => priorsFor(tree, ev).map((p) => [p.cause, p.probability] as const)));
   return docs
-    .filter((d) => applicable.has(d.cause.globalId))
+    .filter((d) => priors.has(d.cause.globalId))
     .map((d) => {
       const treeFit = fit.get(d.tree.id) ?? 0;
-      const raw = textScore(d, words, idf, vocabulary) * (FIT_FLOOR + (1 - FIT_FLOOR) * treeFit) + PRIOR_WEIGHT * treeFit * (priors.get(d.cause.globalId) ?? 0);
+      const raw = textScore(d, words, idf, vocabulary) * (FIT_FLOOR + (1 - FIT_FLOOR) * treeFit) + PRIOR_WEIGHT * treeFit * priors.get(d.cause.globalId)!;
       return { doc: d, raw };
     })
     .filter((s) => s.raw > 0)
