@@ -147,6 +147,8 @@ export const cases = mysqlTable(
     rootCause: text('root_cause'),
     fix: text('fix'),
     cause: varchar('cause', { length: 120 }),
+    /** Who linked `cause`: the author (editor, walk, import) or the server's suggestion at confirm time. */
+    causeLinkedBy: mysqlEnum('cause_linked_by', ['author', 'suggestion']),
     status: mysqlEnum('status', caseStatuses).notNull().default('draft'),
     authorId: ref('author_id').notNull().references(() => users.id),
     confirmedById: ref('confirmed_by_id').references(() => users.id),

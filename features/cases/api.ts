@@ -7,6 +7,8 @@ import {
   caseListResponseSchema,
   casePatchSchema,
   caseResponseSchema,
+  causeListSchema,
+  causeSuggestResponseSchema,
   noteExtractSchema,
   revisionDiffSchema,
   revisionListSchema,
@@ -25,6 +27,17 @@ export const useRevisions = (id: number) => useApi(`${casePath(id)}/revisions`, 
 export const useDiff = (id: number, from: number | null, to: number | null) =>
   useApi(from && to && from !== to ? `${casePath(id)}/diff?from=${from}&to=${to}` : null, revisionDiffSchema);
 export const useTags = () => useApi('/api/tags', tagsResponseSchema);
+export const useShopCauses = () => useApi('/api/cases/causes', causeListSchema);
+
+export interface SuggestBody {
+  title: string;
+  rootCause: string;
+  fix: string;
+  platformId: number | null;
+  codes: string[];
+  symptoms: string[];
+}
+export const suggestCauses = (body: SuggestBody) => api('/api/cases/cause-suggestions', { method: 'POST', body }, causeSuggestResponseSchema);
 
 const platformOptionSchema = z.object({ id: z.number(), make: z.string(), model: z.string(), engine: z.string(), yearFrom: z.number().optional(), yearTo: z.number().optional() });
 export type PlatformOption = z.infer<typeof platformOptionSchema>;

@@ -6,11 +6,13 @@ import type { CaseDetail } from '../../shared/schemas/cases';
 import { ApiError } from '../api/client';
 import { useTheme } from '../theme/use-theme';
 import { Button } from '../ui/button';
+import { Choice } from '../ui/choice';
 import { Notice } from '../ui/notice';
 import { Card, Row } from '../ui/surfaces';
 import { Heading, Text } from '../ui/text';
 import { TextField } from '../ui/text-field';
 import { caseAction, deleteCase, exportUrl } from './api';
+import { CauseRow } from './cause-picker';
 
 type Open = null | 'return' | 'confirm' | 'delete';
 
@@ -19,12 +21,39 @@ function download(url: string) {
   if (typeof window !== 'undefined') window.location.assign(url);
 }
 
+/** No cause linked yet: the suggestions to pick from; with none picked the server links a clear best match. */
+function ConfirmCause({ c, value, onChange }: { c: CaseDetail; value: string | null; onChange: (cause: string | null) => void }) {
+  const t = useTheme();
+  const top = c.causeSuggestions.slice(0, 3);
+  return (
+    <View style={{ gap: t.space.xs }}>
+      <Text variant="small" weight="semibold">
+        No cause in the trees is linked yet
+      </Text>
+      <Text variant="small" tone="slate">
+        {top.length
+          ? 'Pick the cause you confirmed so the walk learns from it. If you pick none, the best match is linked when it is clearly ahead.'
+          : 'Nothing in the write-up matches a tree cause; edit the case to pick one from the full list.'}
+      </Text>
+      {top.length ? (
+        <View role="radiogroup" aria-label="Suggested causes" style={{ gap: t.space.xs }}>
+          {top.map((s) => (
+            <CauseRow key={s.cause} option={s} score={s.score} selected={s.cause === value} onPress={() => onChange(s.cause)} />
+          ))}
+          <Choice label="Or" options={[{ value: '', label: 'Let Causeway decide' }]} value={value ?? ''} onChange={() => onChange(null)} />
+        </View>
+      ) : null}
+    </View>
+  );
+}
+
 export function CaseActions({ c, onChanged }: { c: CaseDetail; onChanged: (message: string) => void }) {
   const t = useTheme();
   const router = useRouter();
   const p = c.permissions;
   const [open, setOpen] = useState<Open>(null);
   const [text, setText] = useState('');
+  const [cause, setCause] = useState<string | null>(null);
   const [busy, setBusy] = useState<string | null>(null);
   const [error, setError] = useState<{ message: string; field?: string } | null>(null);
 
@@ -72,7 +101,12 @@ export function CaseActions({ c, onChanged }: { c: CaseDetail; onChanged: (messa
       {open === 'confirm' ? (
         <View style={{ gap: t.space.sm }}>
           <TextField label="Confirmation note (optional)" hint="e.g. car back after 2 weeks, no codes, fuel trims within 5 %" multiline numberOfLines={3} value={text} onChangeText={setText} error={error?.field} />
-          <Button label="Confirm the fix held" busy={busy === 'confirm'} onPress={() => run('confirm', () => caseAction(c.id, 'confirm', text.trim() ? { note: text.trim() } : {}), 'Fix confirmed.')} />
+          {c.cause ? null : <ConfirmCause c={c} value={cause} onChange={setCause} />}
+          <Button
+            label="Confirm the fix held"
+            busy={busy === 'confirm'}
+            onPress={() => run('confirm', () => caseAction(c.id, 'confirm', { ...(text.trim() ? { note: text.trim() } : {}), ...(cause ? { cause } : {}) }), 'Fix confirmed.')}
+          />
         </View>
       ) : null}
       <Button kind="quiet" label="Export as Markdown" icon="download" onPress={() => download(exportUrl(c.id))} />

@@ -87,6 +87,11 @@ export function CauseAndFix({ c }: { c: CaseDetail }) {
     <Card style={{ gap: t.space.md }}>
       <Fact label="Root cause">{c.rootCause || 'Not written yet'}</Fact>
       <Fact label="Fix">{c.fix || 'Not written yet'}</Fact>
+      <Fact label="Cause in the trees">
+        {c.cause
+          ? `${c.causeTitle ?? c.cause}${c.causeLinkedBy === 'suggestion' ? ' · linked by suggestion (edit the case to change it)' : ''}`
+          : 'Not linked: edit the case and pick the cause, so the walk learns from this fix'}
+      </Fact>
       {c.confirmation ? (
         <View style={{ gap: t.space.xs, padding: t.space.md, borderRadius: t.radius.md, backgroundColor: t.colour.mossFill }}>
           <Badge label="Fix confirmed" symbol="check" tone="moss" />

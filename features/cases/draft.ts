@@ -16,6 +16,8 @@ export interface DraftFields {
   visitDate: string;
   rootCause: string;
   fix: string;
+  /** Global tree cause id (`misfire/coil`) the case confirms, or null. */
+  cause: string | null;
 }
 
 export interface StoredDraft {
@@ -41,6 +43,7 @@ export const emptyFields = (): DraftFields => ({
   visitDate: '',
   rootCause: '',
   fix: '',
+  cause: null,
 });
 
 export function fieldsFromCase(c: CaseDetail): DraftFields {
@@ -57,6 +60,7 @@ export function fieldsFromCase(c: CaseDetail): DraftFields {
     visitDate: c.visitDate ?? '',
     rootCause: c.rootCause ?? '',
     fix: c.fix ?? '',
+    cause: c.cause,
   };
 }
 
@@ -91,6 +95,7 @@ export function toCaseBody(f: DraftFields) {
     symptoms: f.symptoms,
     rootCause: orNull(f.rootCause),
     fix: orNull(f.fix),
+    cause: f.cause,
   };
 }
 
@@ -149,6 +154,8 @@ const storedDraftSchema = z.object({
     visitDate: z.string(),
     rootCause: z.string(),
     fix: z.string(),
+    // drafts kept by a build before the cause picker have none
+    cause: z.string().nullable().default(null),
   }),
 });
 

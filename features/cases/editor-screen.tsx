@@ -19,6 +19,7 @@ import { TextField } from '../ui/text-field';
 import { caseAction, previewNote, useCase } from './api';
 import { AttachmentsPanel } from './attachments-panel';
 import { deviceStore, draftKey, emptyFields, fieldsFromCase, readDraft, saveStateLabel, type DraftFields, type StoredDraft } from './draft';
+import { CausePicker, useCauseSuggestions } from './cause-picker';
 import { CodeChips, PlatformPicker, SymptomTags, VinField } from './editor-fields';
 import { NoteEditor } from './note-editor';
 import { useAutosave } from './use-autosave';
@@ -88,6 +89,7 @@ function CaseEditor({ storageKey, initial, startInConflict, server, canSubmit, c
   const auto = useAutosave(storageKey, initial, { startInConflict });
   const f = auto.fields;
   const extract = useNoteExtract(f.body);
+  const causeSuggestions = useCauseSuggestions({ title: f.title, rootCause: f.rootCause, fix: f.fix, platformId: f.platformId, codes: f.codes, symptoms: f.symptoms });
   const [mode, setMode] = useState<'write' | 'preview'>('write');
   const [attachments, setAttachments] = useState<Attachment[]>(server?.attachments ?? []);
   const [finish, setFinish] = useState<Finish>(server?.status ?? 'draft');
@@ -218,6 +220,7 @@ function CaseEditor({ storageKey, initial, startInConflict, server, canSubmit, c
         <Heading level={3}>Cause and fix</Heading>
         <TextField label="Root cause" multiline numberOfLines={3} value={f.rootCause} onChangeText={(rootCause) => auto.update({ rootCause })} error={e.rootCause} />
         <TextField label="Fix" multiline numberOfLines={3} value={f.fix} onChangeText={(fix) => auto.update({ fix })} error={e.fix} />
+        <CausePicker value={f.cause} onChange={(cause) => auto.update({ cause })} suggestions={causeSuggestions} />
       </Card>
       <Card>
         <AttachmentsPanel

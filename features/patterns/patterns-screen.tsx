@@ -1,6 +1,6 @@
 // The shop-patterns dashboard (senior and manager): figures, charts with their tables, comebacks,
 // repeat faults, the review queue, CSV per table and, for managers, "Send digest now".
-import { Link, type Href } from 'expo-router';
+import type { Href } from 'expo-router';
 import { useState, type ReactNode } from 'react';
 import { View } from 'react-native';
 import { z } from 'zod';
@@ -18,6 +18,7 @@ import { Sheet } from '../ui/sheet';
 import { EmptyState, Loaded } from '../ui/states';
 import { Card, Row, Screen } from '../ui/surfaces';
 import { Heading, Text } from '../ui/text';
+import { LinkText } from '../ui/link-text';
 import { TextField } from '../ui/text-field';
 import { downloadCsv, sendDigestNow, usePatterns, type PeriodQuery } from './api';
 import { BarsChart, TrendChart } from './charts';
@@ -133,16 +134,6 @@ function Section({ title, hint, chart, table, csv, query }: { title: string; hin
 
 const caseHref = (id: number) => `/cases/${id}` as Href;
 const vehicleHref = (id: number) => `/vehicles/${id}` as Href;
-
-function LinkText({ href, children }: { href: Href; children: string }) {
-  return (
-    <Link href={href}>
-      <Text tone="tide" weight="semibold" style={{ textDecorationLine: 'underline' }}>
-        {children}
-      </Text>
-    </Link>
-  );
-}
 
 function Comebacks({ data }: { data: PatternsResponse }) {
   const t = useTheme();

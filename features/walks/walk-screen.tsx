@@ -16,6 +16,7 @@ import { Card, Row, Screen } from '../ui/surfaces';
 import { Heading, Text } from '../ui/text';
 import { writeUp } from './api';
 import { minutes, percent, stepStatus, SYSTEM_LABELS, tagWords } from './labels';
+import { Precedents } from './precedents';
 import { StepPanel } from './step-panel';
 import { useOfflineWalk } from './use-offline-walk';
 
@@ -219,6 +220,7 @@ function WalkBody({ id }: { id: number }) {
         <Badge label={finished ? 'Finished' : 'Open'} symbol={finished ? 'found' : 'open'} tone={finished ? 'moss' : 'tide'} />
       </Row>
       <EvidenceLine walk={walk} />
+      <Precedents precedents={walk.precedents} />
       {readOnly ? <Notice tone="info">{`You are looking over ${walk.owner.name}'s walk. Only they can mark its steps.`}</Notice> : null}
       {finished ? null : <Minutes walk={walk} />}
     </View>

@@ -9,6 +9,8 @@ import { canConfirmFix, canEditCase, canPublish, isSeniorOrAbove, type Actor } f
 import type { CaseDetail, CaseListQuery, CaseSummary } from '../../shared/schemas/cases';
 import type { AppContext } from '../context';
 import { findRepeats } from '../patterns/service';
+import { treesForShop } from '../trees/service';
+import { causeTitle, suggestionsForCase } from './cause-links';
 import { extractFromNote } from './markdown';
 import { loadVisibleCase } from './service';
 
@@ -125,6 +127,7 @@ export async function getCaseDetail(ctx: AppContext, actor: Actor, id: number): 
       .orderBy(asc(caseComments.id)),
     findRepeats(ctx, actor.shopId, id),
   ]);
+  const trees = await treesForShop(ctx, row.shopId);
   const base = toSummary(summary as SummaryRow);
   const facts = extra[0];
   const editable = canEditCase(actor, row);
@@ -136,6 +139,9 @@ export async function getCaseDetail(ctx: AppContext, actor: Actor, id: number): 
     rootCause: row.rootCause,
     fix: row.fix,
     cause: row.cause,
+    causeTitle: causeTitle(trees, row.cause),
+    causeLinkedBy: row.cause ? (row.causeLinkedBy ?? 'author') : null,
+    causeSuggestions: await suggestionsForCase(ctx, row, trees),
     vehicle: base.vehicle ? { ...base.vehicle, mileage: facts?.mileage ?? null, mileageUnit: facts?.mileageUnit ?? null } : null,
     confirmation:
       row.confirmedAt && row.confirmedById ? { by: { id: row.confirmedById, name: facts?.name ?? 'Unknown' }, at: row.confirmedAt.toISOString(), note: row.confirmNote } : null,

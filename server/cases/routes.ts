@@ -7,6 +7,7 @@ import {
   caseCreateSchema,
   caseListQuerySchema,
   casePatchSchema,
+  causeSuggestRequestSchema,
   commentSchema,
   confirmSchema,
   returnSchema,
@@ -16,6 +17,7 @@ import { badRequest } from '../http/errors';
 import { can } from '../http/guard';
 import { valid, validate } from '../http/validate';
 import { readAttachment, saveAttachment } from './attachments';
+import { listShopCauses, suggestionsForCase } from './cause-links';
 import { exportCase } from './import-export';
 import { extractFromNote } from './markdown';
 import { getCaseDetail, listCases, listTags } from './queries';
@@ -46,6 +48,16 @@ export function caseRoutes(ctx: AppContext) {
   r.post('/cases/preview', can('cases.write'), validate('body', previewSchema), (req, res) => {
     const { body, codes } = valid(req, 'body', previewSchema);
     res.json(extractFromNote(body, codes));
+  });
+
+  r.get('/cases/causes', can('cases.read'), async (req, res) => {
+    res.json({ causes: await listShopCauses(ctx, req.user!.shopId) });
+  });
+
+  r.post('/cases/cause-suggestions', can('cases.write'), validate('body', causeSuggestRequestSchema), async (req, res) => {
+    const input = valid(req, 'body', causeSuggestRequestSchema);
+    const facts = { ...input, shopId: req.user!.shopId, platformId: input.platformId ?? null, title: input.title ?? '', rootCause: input.rootCause ?? null, fix: input.fix ?? null };
+    res.json({ suggestions: await suggestionsForCase(ctx, facts) });
   });
 
   r.get('/cases/:id', can('cases.read'), id, async (req, res) => {
@@ -83,7 +95,8 @@ export function caseRoutes(ctx: AppContext) {
   });
 
   r.post('/cases/:id/confirm', can('cases.review'), id, validate('body', confirmSchema), async (req, res) => {
-    await confirmFix(ctx, req.user!, caseId(req), valid(req, 'body', confirmSchema).note);
+    const { note, cause } = valid(req, 'body', confirmSchema);
+    await confirmFix(ctx, req.user!, caseId(req), note, cause);
     res.json(await detail(req));
   });
 

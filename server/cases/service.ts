@@ -1,6 +1,6 @@
 // Case notes: create, edit with optimistic concurrency, and the review workflow.
 // Every change bumps `version`, writes a revision snapshot and a change-log row in one transaction.
-import { and, eq, isNull, sql } from 'drizzle-orm';
+import { and, eq, isNotNull, isNull, sql } from 'drizzle-orm';
 import { transaction, type Db } from '../../db/client';
 import { caseCodes, caseComments, caseRevisions, cases, caseTags, platforms } from '../../db/schema';
 import { parseDtc } from '../../shared/codes';
@@ -10,6 +10,7 @@ import type { SessionUser } from '../auth/session-user';
 import { recordChange } from '../changes/change-log';
 import type { AppContext } from '../context';
 import { badRequest, conflict, forbidden, HttpError, notFound } from '../http/errors';
+import { authorLink, checkCause, suggestedLink } from './cause-links';
 import { notifyReturned, notifySubmitted } from './notify';
 import { vehicleIdFor } from './vehicles';
 
@@ -66,6 +67,7 @@ export async function createCase(ctx: AppContext, actor: SessionUser | Actor, in
   const status = input.status ?? 'draft';
   if (status === 'published' && !canPublish(actor)) throw forbidden('Only senior techs and managers can publish. Send it for review instead.');
   await checkPlatform(ctx.db, actor.shopId, input.platformId);
+  await checkCause(ctx, actor.shopId, input.cause);
   const id = await transaction(ctx.db, async (tx) => {
     const vehicleId = await vehicleIdFor(tx, actor.shopId, input.vehicle, input.platformId ?? null);
     const [row] = await tx
@@ -85,7 +87,7 @@ export async function createCase(ctx: AppContext, actor: SessionUser | Actor, in
         context: input.context ?? [],
         rootCause: input.rootCause ?? null,
         fix: input.fix ?? null,
-        cause: input.cause ?? null,
+        ...authorLink(input.cause ?? null),
         status,
         authorId: options.authorId ?? actor.id,
         confirmedById: options.confirmation?.byId ?? null,
@@ -152,7 +154,12 @@ export async function updateCase(ctx: AppContext, actor: Actor, id: number, patc
   if (!canEditCase(actor, row)) throw forbidden(row.status === 'published' ? 'Only senior techs and managers can edit a published case.' : 'Only the author or a senior tech can edit this case.');
   const { version, vehicle, ...fields } = patch;
   if (fields.platformId !== undefined) await checkPlatform(ctx.db, actor.shopId, fields.platformId);
-  const changes: CaseChanges = Object.fromEntries(Object.entries(fields).filter(([, v]) => v !== undefined));
+  await checkCause(ctx, actor.shopId, fields.cause);
+  const { cause, ...rest } = fields;
+  const changes: CaseChanges = Object.fromEntries(Object.entries(rest).filter(([, v]) => v !== undefined));
+  // Changing or clearing the cause in the editor makes it the author's link, replacing a suggestion's;
+  // a save that sends the same cause back leaves who linked it alone.
+  if (cause !== undefined && cause !== row.cause) Object.assign(changes, authorLink(cause));
   if (vehicle !== undefined) {
     changes.vehicleId = await vehicleIdFor(ctx.db, actor.shopId, vehicle, fields.platformId ?? row.platformId);
     changes.mileage = vehicle?.mileage ?? null;
@@ -192,12 +199,27 @@ export async function returnCase(ctx: AppContext, actor: SessionUser, id: number
   await notifyReturned(ctx, row, actor.name, comment);
 }
 
-export async function confirmFix(ctx: AppContext, actor: SessionUser, id: number, note: string | undefined) {
+/**
+ * The cause link a confirmation writes: the cause given with it (the author's), else the case's
+ * own link, else the best suggestion when it is clearly ahead (recorded as linked by suggestion).
+ */
+async function confirmLink(ctx: AppContext, row: CaseRow, cause: string | undefined): Promise<CaseChanges> {
+  if (cause !== undefined) {
+    await checkCause(ctx, row.shopId, cause);
+    return authorLink(cause);
+  }
+  if (row.cause) return {};
+  const suggested = await suggestedLink(ctx, row);
+  return suggested ? { cause: suggested, causeLinkedBy: 'suggestion' } : {};
+}
+
+export async function confirmFix(ctx: AppContext, actor: SessionUser, id: number, note: string | undefined, cause?: string) {
   const row = await loadVisibleCase(ctx.db, actor, id);
   if (!canConfirmFix(actor)) throw forbidden('Only senior techs and managers can confirm a fix.');
   if (!row.fix?.trim()) throw badRequest('Write down the fix before confirming it.', { fix: 'Describe the fix first.' });
   if (row.confirmedAt) throw conflict('This fix is already confirmed.');
-  const changes = { confirmedById: actor.id, confirmedAt: new Date(), confirmNote: note ?? null };
+  const link = await confirmLink(ctx, row, cause);
+  const changes = { confirmedById: actor.id, confirmedAt: new Date(), confirmNote: note ?? null, ...link };
   await applyChanges(ctx, actor, row, row.version, changes, { comment: { kind: 'confirmed', body: note ? `Fix confirmed: ${note}` : 'Fix confirmed.' } });
 }
 
@@ -209,4 +231,27 @@ export async function commentOnCase(ctx: AppContext, actor: SessionUser, id: num
 export async function deleteCase(ctx: AppContext, actor: SessionUser, id: number) {
   const row = await loadVisibleCase(ctx.db, actor, id);
   await applyChanges(ctx, actor, row, row.version, { deletedAt: new Date() });
+}
+
+export interface BackfillReport {
+  checked: number;
+  linked: { caseId: number; cause: string }[];
+}
+
+/**
+ * The one-off backfill (`npm run backfill:causes`): every confirmed case with no cause, in every
+ * shop, gets the link a confirmation would make today (the best suggestion, when clearly ahead).
+ */
+export async function backfillCauses(ctx: AppContext): Promise<BackfillReport> {
+  const rows = await ctx.db.select().from(cases).where(and(isNull(cases.cause), isNotNull(cases.confirmedAt), isNull(cases.deletedAt)));
+  const linked: BackfillReport['linked'] = [];
+  for (const row of rows) {
+    const suggested = await suggestedLink(ctx, row);
+    if (!suggested) continue;
+    // The revision is in the name of whoever confirmed the fix: the link follows from their confirmation.
+    const actor: Actor = { id: row.confirmedById ?? row.authorId, shopId: row.shopId, role: 'senior' };
+    await applyChanges(ctx, actor, row, row.version, { cause: suggested, causeLinkedBy: 'suggestion' });
+    linked.push({ caseId: row.id, cause: suggested });
+  }
+  return { checked: rows.length, linked };
 }

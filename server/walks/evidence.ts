@@ -2,11 +2,10 @@
 // banks from the platform record, symptoms and context, the platform's facts.
 import { and, eq, isNotNull, isNull } from 'drizzle-orm';
 import { caseTags, cases, platforms } from '../../db/schema';
-import { cylinderForMisfireCode } from '../../shared/codes';
-import { banksOfCylinders, type Platform } from '../../shared/platform';
+import type { Platform } from '../../shared/platform';
 import { parseQuery } from '../../shared/search';
 import type { WalkStart } from '../../shared/schemas/walks';
-import { normaliseCode, type Tree, type WalkEvidence } from '../../shared/walk';
+import { evidenceFrom, type Tree, type WalkEvidence } from '../../shared/walk';
 import type { AppContext } from '../context';
 import { platformFromRow } from '../platforms/service';
 import { badRequest } from '../http/errors';
@@ -37,8 +36,6 @@ export interface BuiltEvidence {
   impliedCodes: string[];
 }
 
-const uniq = <T>(xs: T[]) => [...new Set(xs)];
-
 export async function buildEvidence(ctx: AppContext, shopId: number, input: WalkStart, trees: Tree[]): Promise<BuiltEvidence> {
   const rows = await shopPlatforms(ctx, shopId);
   let platform: PlatformRow | null = null;
@@ -56,23 +53,14 @@ export async function buildEvidence(ctx: AppContext, shopId: number, input: Walk
     : null;
   if (!platform && parsed?.platformIds[0] !== undefined) platform = rows.find((r) => r.id === parsed.platformIds[0]) ?? null;
 
-  const codes = uniq([...input.codes, ...(parsed?.codes ?? [])].map(normaliseCode));
-  const fromCodes = codes.map(cylinderForMisfireCode).filter((n): n is number => n !== null);
-  const cylinders = uniq([...fromCodes, ...(parsed?.cylinders ?? [])]).sort((a, b) => a - b);
-  const symptoms = uniq([...input.symptoms, ...(parsed?.tags ?? []), ...(parsed?.misfire ? ['misfire'] : [])]);
-  const context = uniq([...input.context, ...(parsed?.context ?? [])]);
-
-  let banks: WalkEvidence['banks'] = null;
-  if (platform && cylinders.length) {
-    const b = banksOfCylinders(toPlatform(platform), cylinders);
-    if (b.bank1.length || b.bank2.length) banks = { bank1: b.bank1, bank2: b.bank2, bothBanks: b.bothBanks };
-  }
-  const facts: NonNullable<WalkEvidence['platform']> = {};
-  if (platform) {
-    if (platform.fuel) facts.fuel = platform.fuel;
-    if (platform.induction) facts.induction = platform.induction;
-    facts.layout = platform.layout;
-    facts.cylinders = platform.cylinders;
-  }
-  return { evidence: { codes, cylinders, banks, symptoms, context, platform: platform ? facts : null }, platform, impliedCodes: parsed?.impliedCodes ?? [] };
+  const evidence = evidenceFrom(
+    {
+      codes: [...input.codes, ...(parsed?.codes ?? [])],
+      cylinders: parsed?.cylinders ?? [],
+      symptoms: [...input.symptoms, ...(parsed?.tags ?? []), ...(parsed?.misfire ? ['misfire'] : [])],
+      context: [...input.context, ...(parsed?.context ?? [])],
+    },
+    platform ? toPlatform(platform) : null,
+  );
+  return { evidence, platform, impliedCodes: parsed?.impliedCodes ?? [] };
 }

@@ -3,21 +3,22 @@
 import { and, desc, eq, isNotNull, isNull, sql } from 'drizzle-orm';
 import { transaction, type Db } from '../../db/client';
 import { cases, platforms, users, walks } from '../../db/schema';
-import { platformSimilarity } from '../../shared/platform';
 import { isSeniorOrAbove } from '../../shared/policy';
 import type { CaseCreate } from '../../shared/schemas/cases';
 import type { StepMarkInput, WalkResponse, WalkStart, WalkSummary } from '../../shared/schemas/walks';
 import {
   buildWriteUp,
-  caseSimilarity,
   isSameMark,
   markStep,
+  pickPrecedents,
   refreshWalk,
+  scoreHistory,
   selectTrees,
   startWalk,
   walkStateSchema,
   WalkError,
   type ConfirmedCase,
+  type HistoryCase,
   type Tree,
   type Walk,
   type WalkErrorCode,
@@ -30,41 +31,51 @@ import { forbidden, HttpError, notFound } from '../http/errors';
 import { treesForShop } from '../trees/service';
 import { buildEvidence, toPlatform, type PlatformRow } from './evidence';
 
-/** What the evidence column holds: the evidence and how the tree was chosen. */
+/** What the evidence column holds: the evidence, how the tree was chosen, and the precedents it opened with. */
 interface StoredEvidence {
   evidence: WalkEvidence;
   query: string | null;
   alternatives: WalkResponse['alternatives'];
   treeReasons: string[];
+  precedents?: WalkResponse['precedents'];
 }
 
 // ---- learning ----
 
-/** The shop's published, confirmed fixes in this tree, each with its similarity to the walk. */
-async function confirmedCasesFor(ctx: AppContext, shopId: number, tree: Tree, ev: WalkEvidence, platform: PlatformRow | null): Promise<ConfirmedCase[]> {
+/** The shop's published, confirmed cases, each with its similarity to the walk (shared/walk/history.ts). */
+async function shopHistory(ctx: AppContext, shopId: number, ev: WalkEvidence, platform: PlatformRow | null) {
   const rows = await ctx.db
     .select({ id: cases.id, title: cases.title, cause: cases.cause, codes: cases.codes, symptoms: cases.symptoms, context: cases.context, platform: platforms })
     .from(cases)
     .leftJoin(platforms, eq(platforms.id, cases.platformId))
-    .where(
-      and(
-        eq(cases.shopId, shopId),
-        eq(cases.status, 'published'),
-        isNotNull(cases.confirmedAt),
-        isNull(cases.deletedAt),
-        sql`${cases.cause} LIKE ${`${tree.id}/%`}`,
-      ),
-    );
-  const walkPlatform = platform ? toPlatform(platform) : null;
-  return rows.map((row) => {
-    const platformScore = walkPlatform ? (row.platform ? platformSimilarity(walkPlatform, toPlatform(row.platform)).score : 0) : null;
-    return {
-      caseId: row.id,
-      title: row.title,
-      cause: row.cause ?? '',
-      similarity: caseSimilarity(ev, { codes: row.codes, symptoms: row.symptoms, context: row.context }, platformScore),
-    };
-  });
+    .where(and(eq(cases.shopId, shopId), eq(cases.status, 'published'), isNotNull(cases.confirmedAt), isNull(cases.deletedAt)));
+  const history: HistoryCase[] = rows.map((row) => ({
+    caseId: row.id,
+    title: row.title,
+    cause: row.cause,
+    codes: row.codes,
+    symptoms: row.symptoms,
+    context: row.context,
+    platform: row.platform ? toPlatform(row.platform) : null,
+  }));
+  return scoreHistory(ev, platform ? toPlatform(platform) : null, history);
+}
+
+type ScoredCase = Awaited<ReturnType<typeof shopHistory>>[number];
+
+/** Cases whose cause is in the walk's tree teach it (learnFromCases ignores the rest). */
+const confirmedIn = (tree: Tree, scored: ScoredCase[]): ConfirmedCase[] =>
+  scored.flatMap((c) => (c.cause?.startsWith(`${tree.id}/`) ? [{ caseId: c.caseId, title: c.title, cause: c.cause, similarity: c.similarity }] : []));
+
+function precedentsOf(walk: Walk, scored: ScoredCase[]): WalkResponse['precedents'] {
+  return pickPrecedents(scored).map((c) => ({
+    caseId: Number(c.caseId),
+    title: c.title,
+    cause: c.cause,
+    causeTitle: walk.steps.find((s) => s.cause === c.cause)?.title ?? null,
+    similarity: c.similarity,
+    sameEngine: c.sameEngine,
+  }));
 }
 
 // ---- reading ----
@@ -95,6 +106,7 @@ function toResponse(row: WalkRow, ownerName: string, platform: WalkResponse['pla
     caseId: row.caseId ?? null,
     alternatives: stored.alternatives ?? [],
     treeReasons: stored.treeReasons ?? [],
+    precedents: stored.precedents ?? [],
     createdAt: row.createdAt.toISOString(),
     updatedAt: row.updatedAt.toISOString(),
   };
@@ -163,13 +175,14 @@ export async function createWalk(ctx: AppContext, actor: SessionUser, input: Wal
       'No cause tree fits this evidence. Add a trouble code (e.g. P0302) or a symptom such as misfire, rough-idle or no-start.',
     );
   }
-  const confirmedCases = await confirmedCasesFor(ctx, actor.shopId, best.tree, evidence, platform);
-  const walk = startWalk(best.tree, evidence, { confirmedCases });
+  const scored = await shopHistory(ctx, actor.shopId, evidence, platform);
+  const walk = startWalk(best.tree, evidence, { confirmedCases: confirmedIn(best.tree, scored) });
   const stored: StoredEvidence = {
     evidence,
     query: input.query ?? null,
     alternatives: others.slice(0, 4).map((m) => ({ treeId: m.tree.id, title: m.tree.title, score: m.score, reasons: m.reasons })),
     treeReasons: best.reasons,
+    precedents: precedentsOf(walk, scored),
   };
   const [inserted] = await ctx.db
     .insert(walks)

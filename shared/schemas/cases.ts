@@ -83,7 +83,8 @@ export const casePatchSchema = z.strictObject({
 export type CasePatch = z.infer<typeof casePatchSchema>;
 
 export const returnSchema = z.strictObject({ comment: text(2000, 'The comment').min(3, 'Say what needs changing (at least 3 characters).') });
-export const confirmSchema = z.strictObject({ note: text(2000, 'The note').optional() });
+/** Without `cause`, a case with no cause linked gets the best suggestion when it is clearly ahead. */
+export const confirmSchema = z.strictObject({ note: text(2000, 'The note').optional(), cause: caseFields.cause.unwrap().unwrap().optional() });
 export const commentSchema = z.strictObject({ body: text(2000, 'The comment').min(1, 'Write a comment.') });
 
 const sortKeys = ['updated', 'platform', 'codes', 'status', 'confirmed', 'title'] as const;
@@ -168,12 +169,45 @@ export const repeatVisitSchema = z.object({
   reason: z.string(),
 });
 
+export const causeSuggestionSchema = z.object({
+  cause: z.string(),
+  title: z.string(),
+  treeId: z.string(),
+  treeTitle: z.string(),
+  system: z.string(),
+  score: z.number(),
+});
+export type CauseSuggestionView = z.infer<typeof causeSuggestionSchema>;
+
+/** Every cause of the shop's trees, for the editor's cause picker (grouped there by tree and system). */
+export const causeOptionSchema = causeSuggestionSchema.omit({ score: true });
+export const causeListSchema = z.object({ causes: z.array(causeOptionSchema) });
+export type CauseOption = z.infer<typeof causeOptionSchema>;
+
+/** What the editor sends to have its unsaved write-up read for causes. */
+export const causeSuggestRequestSchema = z.strictObject({
+  title: z.string().max(200).optional(),
+  rootCause: z.string().max(2000).nullable().optional(),
+  fix: z.string().max(2000).nullable().optional(),
+  platformId: caseFields.platformId,
+  codes: caseFields.codes.default([]),
+  symptoms: z.array(z.string().max(60)).max(30).default([]),
+  context: z.array(z.string().max(60)).max(10).default([]),
+});
+export const causeSuggestResponseSchema = z.object({ suggestions: z.array(causeSuggestionSchema) });
+
 export const caseDetailSchema = caseSummarySchema.extend({
   body: z.string(),
   context: z.array(z.string()),
   rootCause: z.string().nullable(),
   fix: z.string().nullable(),
   cause: z.string().nullable(),
+  /** The linked cause's title in the shop's trees. */
+  causeTitle: z.string().nullable(),
+  /** Whether the cause was set by a person or linked from the best suggestion when the fix was confirmed. */
+  causeLinkedBy: z.enum(['author', 'suggestion']).nullable(),
+  /** Tree causes the write-up most likely describes (root cause, fix, title, codes, symptoms), best first. */
+  causeSuggestions: z.array(causeSuggestionSchema),
   vehicle: z
     .object({ id: z.number(), vin: z.string(), plate: z.string().nullable(), mileage: z.number().nullable(), mileageUnit: z.enum(['km', 'mi']).nullable() })
     .nullable(),

@@ -35,6 +35,18 @@ const personSchema = z.object({ id: z.number(), name: z.string() });
 const platformRefSchema = z.object({ id: z.number(), make: z.string(), model: z.string(), engine: z.string() });
 
 /** A walk as the API returns it: the shared/walk state plus who, what car, and the other trees that matched. */
+export const precedentSchema = z.object({
+  caseId: z.number(),
+  title: z.string(),
+  /** Global cause id the case was linked to, or null when it never was. */
+  cause: z.string().nullable(),
+  /** The cause's step title in this walk, when the cause is one of its steps. */
+  causeTitle: z.string().nullable(),
+  similarity: z.number(),
+  sameEngine: z.boolean(),
+});
+export type PrecedentView = z.infer<typeof precedentSchema>;
+
 export const walkResponseSchema = walkStateSchema.extend({
   id: z.number(),
   /** Row version for optimistic concurrency (the state's own `version` is its format). */
@@ -46,6 +58,8 @@ export const walkResponseSchema = walkStateSchema.extend({
   caseId: z.number().nullable(),
   alternatives: z.array(z.object({ treeId: z.string(), title: z.string(), score: z.number(), reasons: z.array(z.string()) })),
   treeReasons: z.array(z.string()),
+  /** The shop's confirmed cases closest to this walk (similarity >= 0.7), closest first: "seen before". */
+  precedents: z.array(precedentSchema).default([]),
   createdAt: z.string(),
   updatedAt: z.string(),
 });

@@ -1,5 +1,7 @@
 import type { CaseId, CausePrior } from './priors';
 
+const clamp01 = (x: number) => (Number.isFinite(x) ? Math.min(1, Math.max(0, x)) : 0);
+
 export interface ConfirmedCase {
   caseId: CaseId;
   title: string;
@@ -10,16 +12,23 @@ export interface ConfirmedCase {
 }
 
 export interface LearnOptions {
-  /**
-   * How many fully similar cases the tree's priors are worth. With the default 5,
-   * one case can move a cause by at most 1/6 of the probability mass.
-   */
+  /** How many pseudo-counts the tree's priors are worth (the Dirichlet's total a). */
   strength?: number;
 }
 
 export const DEFAULT_STRENGTH = 5;
 
-const clamp01 = (x: number) => (Number.isFinite(x) ? Math.min(1, Math.max(0, x)) : 0);
+/**
+ * How much one case counts, from its similarity s: PRECEDENT_COUNT x s^SHARPNESS.
+ * Sharp on purpose: the shop's own exact precedent (s = 1) is worth 12 counts, more than twice
+ * the tree's whole prior (a = 5); s = 0.9 is worth 5.2, s = 0.8 2.0, s = 0.7 0.7, and a
+ * same-family case on another engine (s about 0.5-0.6) 0.05-0.2, so it only nudges.
+ * Chosen against `npm run bench:walks` (docs/performance.md) and the VT27 precedent test.
+ */
+export const PRECEDENT_COUNT = 12;
+export const SHARPNESS = 8;
+
+export const caseWeight = (similarity: number): number => PRECEDENT_COUNT * clamp01(similarity) ** SHARPNESS;
 
 const plural = (n: number) => (n === 1 ? '1 confirmed fix in this shop' : `${n} confirmed fixes in this shop`);
 
@@ -27,7 +36,7 @@ const plural = (n: number) => (n === 1 ? '1 confirmed fix in this shop' : `${n} 
  * Posterior mean of a Dirichlet whose pseudo-counts are the priors scaled by
  * `strength` (a), after observing similarity-weighted counts n_i:
  *
- *   p_i' = (a * p_i + n_i) / (a + N),   n_i = sum of similarity over cases confirming i,  N = sum of n_i
+ *   p_i' = (a * p_i + n_i) / (a + N),   n_i = sum of caseWeight(similarity) over cases confirming i,  N = sum of n_i
  *
  * Cases whose cause is not among the priors (another tree, or a cause that does
  * not apply to this platform) are ignored; each case counts once.
@@ -41,7 +50,7 @@ export function learnFromCases(priors: CausePrior[], cases: ConfirmedCase[], opt
   const refs = new Map<string, ConfirmedCase[]>();
   for (const c of cases) {
     const key = `${typeof c.caseId}:${c.caseId}`;
-    const weight = clamp01(c.similarity);
+    const weight = caseWeight(c.similarity);
     if (!known.has(c.cause) || seen.has(key) || weight === 0) continue;
     seen.add(key);
     counts.set(c.cause, (counts.get(c.cause) ?? 0) + weight);

@@ -66,10 +66,18 @@ export const SCOPE_RULES: Record<Scope, Partial<Record<MisfirePattern, ScopeRule
 
 export const PATTERN_PRECEDENCE: MisfirePattern[] = ['both-banks', 'one-bank', 'single-cylinder', 'multi-cylinder'];
 
-function scopeRule(scope: Scope | undefined, patterns: Set<MisfirePattern>): ScopeRule | undefined {
+/** Replaces a cylinder part's penalty for a spread misfire when the recent work disturbed that part. */
+export const DISTURBED_SCOPE_RULE: ScopeRule = {
+  factor: 1,
+  why: 'work can cross or loosen this on several cylinders at once, so misfires on more than one cylinder do not make it less likely',
+};
+
+function scopeRule(scope: Scope | undefined, patterns: Set<MisfirePattern>, disturbed: boolean): ScopeRule | undefined {
   if (!scope) return undefined;
   const pattern = PATTERN_PRECEDENCE.find((p) => patterns.has(p) && SCOPE_RULES[scope][p]);
-  return pattern ? SCOPE_RULES[scope][pattern] : undefined;
+  if (!pattern) return undefined;
+  const rule = SCOPE_RULES[scope][pattern];
+  return disturbed && scope === 'cylinder' && rule && rule.factor < 1 ? DISTURBED_SCOPE_RULE : rule;
 }
 
 /**
@@ -81,7 +89,11 @@ export function priorsFor(tree: Tree, ev: WalkEvidence): CausePrior[] {
   const scored = listCauses(tree)
     .filter((cause) => !cause.appliesWhen || conditionHolds(cause.appliesWhen, ev, 'pass'))
     .map((cause) => {
-      const rules = [scopeRule(cause.scope, patterns), ...cause.modifiers.filter((m) => conditionHolds(m.when, ev, 'fail'))];
+      const modifiers = cause.modifiers.filter((m) => conditionHolds(m.when, ev, 'fail'));
+      const disturbed = modifiers.some((m) => m.disturbedByWork);
+      const scope = scopeRule(cause.scope, patterns, disturbed);
+      // the work's own reason reads first; the lifted pattern penalty explains itself after it
+      const rules = scope === DISTURBED_SCOPE_RULE ? [...modifiers, scope] : [scope, ...modifiers];
       const fired = rules.filter((r): r is ScopeRule => r !== undefined);
       const factor = fired.reduce((f, r) => f * r.factor, 1);
       const prior: CausePrior = {

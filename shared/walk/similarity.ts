@@ -4,7 +4,8 @@
  * evidence for (a walk with no platform is not marked down for it):
  *   codes 0.5     Jaccard of the base codes, or 0.6 x Jaccard of the families (P030x)
  *   platform 0.25 platformSimilarity (same engine 0.85-1, same model 0.6-0.7, same layout 0.3-0.4)
- *   tags 0.25     Jaccard of symptom and context tags
+ *   tags 0.25     cosine (Ochiai) of the symptom and context tag sets: |A n B| / sqrt(|A| |B|),
+ *                 so a write-up that lists more tags than the walk is not marked down as hard as Jaccard would
  * A case that shares nothing scores 0 and is ignored by the learning.
  */
 import { normaliseCode, normaliseTag } from './evidence';
@@ -26,6 +27,13 @@ function jaccard(a: Set<string>, b: Set<string>): number {
   return shared / (a.size + b.size - shared);
 }
 
+function cosine(a: Set<string>, b: Set<string>): number {
+  if (a.size === 0 || b.size === 0) return 0;
+  let shared = 0;
+  for (const x of a) if (b.has(x)) shared += 1;
+  return shared / Math.sqrt(a.size * b.size);
+}
+
 const baseCodes = (codes: string[]) => new Set(codes.map((c) => normaliseCode(c).slice(0, 5)));
 const families = (codes: string[]) => new Set(codes.map((c) => normaliseCode(c).slice(0, 4)));
 const tags = (x: SimilarityInput) => new Set([...x.symptoms, ...x.context].map(normaliseTag).filter(Boolean));
@@ -43,7 +51,7 @@ export function caseSimilarity(walk: SimilarityInput, other: SimilarityInput, pl
   if (walk.codes.length) parts.push([SIMILARITY_WEIGHTS.codes, codeSimilarity(walk.codes, other.codes)]);
   if (platformScore !== null) parts.push([SIMILARITY_WEIGHTS.platform, Math.min(1, Math.max(0, platformScore))]);
   const walkTags = tags(walk);
-  if (walkTags.size) parts.push([SIMILARITY_WEIGHTS.tags, jaccard(walkTags, tags(other))]);
+  if (walkTags.size) parts.push([SIMILARITY_WEIGHTS.tags, cosine(walkTags, tags(other))]);
   const weight = parts.reduce((sum, [w]) => sum + w, 0);
   if (weight === 0) return 0;
   const score = parts.reduce((sum, [w, s]) => sum + w * s, 0) / weight;

@@ -75,6 +75,12 @@ export const modifierSchema = z.strictObject({
   when: conditionSchema,
   factor: z.number().positive().finite(),
   why: text,
+  /**
+   * The modifier says recent work disturbed the part (connectors unplugged, a loom or hose
+   * moved). Such a fault can reach cylinders that share nothing else (two connectors crossed),
+   * so a cylinder part's misfire-pattern penalty is not applied while this fires.
+   */
+  disturbedByWork: z.boolean().optional(),
 });
 export type Modifier = z.output<typeof modifierSchema>;
 

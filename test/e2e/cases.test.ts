@@ -106,6 +106,12 @@ describe('writing a case in the editor', () => {
     await page.getByLabel('Mileage', { exact: true }).fill('84 200');
     await page.getByLabel('Root cause').fill('Coil 2 boot tracking to the head under load');
     await page.getByLabel('Fix', { exact: true }).fill('New coil boot and plug on cylinder 2');
+    // the cause picker suggests from what was just typed, and searches every cause of the shop's trees
+    await page.getByRole('radiogroup', { name: 'Suggested causes' }).getByRole('radio', { name: /^Ignition coil breaking down/ }).waitFor();
+    await page.getByLabel('Search the causes').fill('charge pipe');
+    await page.getByRole('radio', { name: /^Charge pipe/ }).first().waitFor();
+    await screenshot(page, 'case-cause-picker-phone');
+    await page.getByLabel('Search the causes').fill('');
 
     await page.getByText(/Saved \d\d:\d\d/).waitFor({ timeout: 15_000 });
     await screenshot(page, 'case-editor-phone');
@@ -199,8 +205,14 @@ describe('review by a senior', () => {
     await page.getByText('Published: everyone in the shop can find it now.').waitFor();
     await page.getByRole('button', { name: 'Confirm fix' }).click();
     await page.getByLabel('Confirmation note (optional)').fill('Back after 300 km, no misfire counts on cylinder 2.');
+    // no cause linked: the confirm step offers the suggestions; left to Causeway, the clear best match is linked
+    await page.getByText('No cause in the trees is linked yet').waitFor();
+    await page.getByRole('radio', { name: /^Ignition coil breaking down/ }).waitFor();
+    await page.getByRole('radio', { name: 'Let Causeway decide' }).click();
+    await screenshot(page, 'case-confirm-suggestions-wide');
     await page.getByRole('button', { name: 'Confirm the fix held' }).click();
     await page.getByText('Fix confirmed.').waitFor();
+    await page.getByText(/Ignition coil breaking down · linked by suggestion/).waitFor();
     await page.getByText(`by ${person('senior').name}`, { exact: false }).first().waitFor();
     await page.getByText('Back after 300 km, no misfire counts on cylinder 2.').first().waitFor();
     await screenshot(page, 'case-view-confirmed-wide');

@@ -21,6 +21,15 @@ async function startDemoMisfire(page: Page) {
   await page.getByText('Expected time to find it').waitFor();
 }
 
+/** "Seen before on this engine" with demo case 0050, the cause it found, and a link to the case. */
+async function expectPrecedent(page: Page) {
+  await page.getByText('Seen before on this engine').waitFor();
+  const link = page.getByRole('link', { name: 'VT27 misfire cyl 2 and 5 after timing belt job', exact: true });
+  await link.waitFor();
+  expect(await link.getAttribute('href')).toMatch(/^\/cases\/\d+$/);
+  await page.getByText('Found: Coil connector or ignition harness fault').waitFor();
+}
+
 describe('a cause walk on a phone', () => {
   it('walks the demo misfire case to a write-up, one step at a time', async () => {
     const { page, problems, context } = await openPage(getBrowser(), 'phone', baseUrl);
@@ -38,26 +47,32 @@ describe('a cause walk on a phone', () => {
     await page.getByRole('button', { name: 'Start the walk' }).click();
     await page.waitForURL(/\/walks\/\d+$/);
 
-    // after timing work with misfires on both banks, cam timing comes first, with its reason and caution
+    // the shop has seen exactly this (demo case 0050): the walk opens with it...
+    await expectPrecedent(page);
+    await screenshot(page, 'walk-precedent-phone');
+    // ...and the crossed coil connectors come first, with the reason and caution
     const step = page.getByLabel(/^Step: /);
-    await step.getByRole('heading', { name: /Cam timing off/ }).waitFor();
+    await step.getByRole('heading', { name: /Coil connector or ignition harness fault/ }).waitFor();
     await step.getByText(/likely now/).waitFor();
-    await step.getByText(/timing work was done/).waitFor();
+    await step.getByText(/1 confirmed fix in this shop/).waitFor();
     await step.getByRole('note').waitFor();
     await page.getByText('Expected time to find it').waitFor();
     await screenshot(page, 'walk-step-1-phone');
 
-    await step.getByLabel(/^Reading/).fill('1');
-    await step.getByRole('button', { name: 'No fault' }).click();
-    await page.getByLabel(/^Step: /).getByRole('heading', { name: /Cam timing off/ }).waitFor({ state: 'detached' });
-    await screenshot(page, 'walk-step-2-phone');
-
+    // the tech still reads the cam deviation first (a quick check after a belt job)
     await page.getByRole('radio', { name: /All causes/ }).click();
     await page.getByText('All causes, in test order').waitFor();
     await screenshot(page, 'walk-all-causes-phone');
+    await page.getByRole('button', { name: /^Cam timing off/ }).click();
+    const cam = page.getByLabel(/^Step: Cam timing off/);
+    await cam.waitFor();
+    await cam.getByLabel(/^Reading/).fill('1');
+    await cam.getByRole('button', { name: 'No fault' }).click();
+    await page.getByRole('radio', { name: /All causes/ }).click();
     await page.getByRole('button', { name: /^Coil connector or ignition harness fault/ }).click();
     const harness = page.getByLabel('Step: Coil connector or ignition harness fault');
     await harness.waitFor();
+    await screenshot(page, 'walk-step-2-phone');
     await harness.getByLabel(/^Note/).fill('Coil connectors for 2 and 5 crossed on the loom');
     await harness.getByRole('button', { name: 'Fault found' }).click();
     await page.getByText('Fault found: Coil connector or ignition harness fault.').waitFor();
@@ -107,6 +122,9 @@ describe('a cause walk on a wide screen', () => {
     await page.getByText(/You are looking over/).waitFor();
     await page.getByText('Ignition', { exact: true }).waitFor();
     await screenshot(page, 'walk-wide');
+    await startDemoMisfire(page);
+    await expectPrecedent(page);
+    await screenshot(page, 'walk-precedent-wide');
     await page.goto('/trees');
     await page.getByRole('heading', { name: 'Cause trees' }).waitFor();
     await page.getByRole('link', { name: 'Engine misfire' }).waitFor();

@@ -24,7 +24,7 @@ beforeAll(async () => {
   other = await seedShop(t.ctx, 'Elsewhere Motors', ['manager']);
   const [p] = await t.ctx.db
     .insert(platforms)
-    .values({ shopId: shop.shopId, key: 'test-v6', make: 'Testmark', model: 'Ridge', engine: 'TR30', yearFrom: 2015, yearTo: 2022, cylinders: 6, layout: 'V', banks: { '1': [1, 3, 5], '2': [2, 4, 6] }, firingOrder: [1, 4, 3, 6, 2, 5], fuel: 'petrol', induction: 'turbo' })
+    .values({ shopId: shop.shopId, key: 'test-v6', make: 'Testmark', model: 'Ridge', engine: 'TR30', yearFrom: 2015, yearTo: 2022, cylinders: 6, layout: 'V', banks: { '1': [1, 3, 5], '2': [2, 4, 6] }, firingOrder: [1, 2, 3, 4, 5, 6], fuel: 'petrol', induction: 'turbo' })
     .$returningId();
   platformId = p!.id;
   for (const role of ['apprentice', 'technician', 'senior', 'manager'] as const) as[role] = await signedIn(t.app, shop.people[role].email);

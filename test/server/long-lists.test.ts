@@ -25,8 +25,8 @@ afterAll(() => t.close());
 const send = (a: Agent, method: 'post' | 'put' | 'patch', url: string, body: object) => a.agent[method](url).set('X-CSRF-Token', a.csrf).send(body);
 const upTo = (n: number) => Array.from({ length: n }, (_, i) => i + 1);
 
-// An invented platform; 1-4-3-6-2-5 is a common 90-degree V6 order (common practice, no source).
-const v6 = { make: 'Tarnwick', model: 'Osprette', engine: 'TW30', yearFrom: 2016, yearTo: 2023, cylinders: 6, layout: 'V', banks: { '1': [1, 3, 5], '2': [2, 4, 6] }, firingOrder: [1, 4, 3, 6, 2, 5] };
+// An invented platform numbered alternately; 1-2-3-4-5-6 then alternates banks (a common 60-degree V6 order, from memory).
+const v6 = { make: 'Tarnwick', model: 'Osprette', engine: 'TW30', yearFrom: 2016, yearTo: 2023, cylinders: 6, layout: 'V', banks: { '1': [1, 3, 5], '2': [2, 4, 6] }, firingOrder: [1, 2, 3, 4, 5, 6] };
 
 describe('platform lists are as long as an engine has cylinders (at most 16)', () => {
   it('answers the reported firing order of [1..145,000] with 400 naming the limit', async () => {

@@ -12,7 +12,8 @@ let technician: Agent;
 let senior: Agent;
 let otherSenior: Agent;
 
-// An invented platform; firing order 1-4-3-6-2-5 is a common 90-degree V6 order (references.md §6).
+// An invented platform; firing order 1-4-3-6-2-5 is a common 90-degree V6 order (references.md §6),
+// numbered one bank after the other so the order alternates banks.
 const v6 = {
   make: 'Tarnwick',
   model: 'Osprette',
@@ -21,7 +22,7 @@ const v6 = {
   yearTo: 2023,
   cylinders: 6,
   layout: 'V',
-  banks: { '1': [1, 3, 5], '2': [2, 4, 6] },
+  banks: { '1': [1, 2, 3], '2': [4, 5, 6] },
   firingOrder: [1, 4, 3, 6, 2, 5],
   fuel: 'petrol',
   induction: 'turbo',
@@ -99,7 +100,7 @@ describe('GET /api/platforms', () => {
     expect(res.platform).toMatchObject({ id, make: 'Tarnwick', layout: 'V', firingOrder: [1, 4, 3, 6, 2, 5] });
     // positions i and i + n/2 of 1-4-3-6-2-5: 1 & 6, 4 & 2, 3 & 5 (references.md §6)
     expect(res.facts.companionPairs).toEqual([[1, 6], [4, 2], [3, 5]]);
-    expect(res.facts.banks).toEqual({ '1': [1, 3, 5], '2': [2, 4, 6] });
+    expect(res.facts.banks).toEqual({ '1': [1, 2, 3], '2': [4, 5, 6] });
     expect(res.facts.companionWords[0]).toMatch(/one on each bank, firing companions/);
   });
 

@@ -16,7 +16,7 @@ let shop: Awaited<ReturnType<typeof seedShop>>;
 let other: Awaited<ReturnType<typeof seedShop>>;
 const p: Record<string, number> = {};
 
-// Fictional platforms. V6 numbered alternately (odd cylinders on bank 1), firing order 1-4-3-6-2-5 (references.md §6).
+// Fictional platforms. V6 numbered alternately (odd cylinders on bank 1); no firing order recorded.
 const vt27 = { make: 'Orrin', model: 'Selby', engine: 'QV27', yearFrom: 2015, yearTo: 2022, cylinders: 6, layout: 'V' as const, banks: { '1': [1, 3, 5], '2': [2, 4, 6] } };
 const sameModel = { make: 'Orrin', model: 'Selby', engine: 'QL20', yearFrom: 2015, yearTo: 2022, cylinders: 4, layout: 'inline' as const };
 const otherV6 = { make: 'Brant', model: 'Kell', engine: 'BX30', yearFrom: 2012, yearTo: 2019, cylinders: 6, layout: 'V' as const, banks: { '1': [1, 2, 3], '2': [4, 5, 6] } };

@@ -36,7 +36,8 @@ const v6: PlatformInput = {
   yearTo: 2015,
   cylinders: 6,
   layout: 'V',
-  banks: { '1': [1, 3, 5], '2': [2, 4, 6] },
+  // numbered one bank after the other, so 1-4-3-6-2-5 alternates banks as an even-firing V6 must
+  banks: { '1': [1, 2, 3], '2': [4, 5, 6] },
   firingOrder: [1, 4, 3, 6, 2, 5], // common 90-degree V6, references.md §6 [S]
   fuel: 'petrol',
   induction: 'turbo',
@@ -141,7 +142,7 @@ describe('banks', () => {
   });
 
   it('sorts a set of cylinders by bank', () => {
-    expect(banksOfCylinders(v6, [2, 5, 9, 2])).toEqual({ bank1: [5], bank2: [2], unknown: [9], bothBanks: true });
+    expect(banksOfCylinders(v6, [2, 5, 9, 2])).toEqual({ bank1: [2], bank2: [5], unknown: [9], bothBanks: true });
     expect(banksOfCylinders(v6, [1, 3])).toMatchObject({ bothBanks: false });
     expect(banksOfCylinders(inline4, [1, 4]).bank1).toEqual([1, 4]);
   });
@@ -239,7 +240,7 @@ describe('describeCylinders', () => {
   });
 
   it('mixed sets list both banks and any companion pairs', () => {
-    expect(describeCylinders(v6, [1, 2, 3, 6])).toBe('cylinders 1, 2, 3 and 6: 1 and 3 on bank 1, 2 and 6 on bank 2, firing companions 1 and 6');
+    expect(describeCylinders(v6, [1, 2, 4, 6])).toBe('cylinders 1, 2, 4 and 6: 1 and 2 on bank 1, 4 and 6 on bank 2, firing companions 1 and 6, 4 and 2');
   });
 
   it('says when banks are not recorded', () => {

@@ -36,6 +36,7 @@ function walkResponse(id = 7): WalkResponse {
     caseId: null,
     alternatives: [],
     treeReasons: ['symptom test'],
+    precedents: [],
     createdAt: '2026-01-01T00:00:00.000Z',
     updatedAt: '2026-01-01T00:00:00.000Z',
   };

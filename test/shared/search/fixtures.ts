@@ -1,11 +1,11 @@
 // Fictional platforms and shop tags for the search tests (invented makes, models and engines).
 import type { Platform } from '../../../shared/platform';
 
-// V6 numbered by bank (odd on bank 1); firing order 1-4-3-6-2-5 is the common
-// 90-degree V6 order from references.md §6.
+// V6 numbered alternately (odd on bank 1); firing order 1-2-3-4-5-6 then alternates banks,
+// as an even-firing V6 must (a common 60-degree V6 order, from memory).
 export const sableVt27: Platform = {
   id: 1, make: 'Aldwyn', model: 'Sable', engine: 'VT27', yearFrom: 2010, yearTo: 2016,
-  cylinders: 6, layout: 'V', banks: { '1': [1, 3, 5], '2': [2, 4, 6] }, firingOrder: [1, 4, 3, 6, 2, 5],
+  cylinders: 6, layout: 'V', banks: { '1': [1, 3, 5], '2': [2, 4, 6] }, firingOrder: [1, 2, 3, 4, 5, 6],
   fuel: 'petrol', induction: 'natural',
 };
 
@@ -18,7 +18,7 @@ export const sableQl20: Platform = {
 // Same engine in another model of the same make.
 export const marshVt27: Platform = {
   id: 3, make: 'Aldwyn', model: 'Marsh', engine: 'VT27', yearFrom: 2012, yearTo: 2018,
-  cylinders: 6, layout: 'V', banks: { '1': [1, 3, 5], '2': [2, 4, 6] }, firingOrder: [1, 4, 3, 6, 2, 5],
+  cylinders: 6, layout: 'V', banks: { '1': [1, 3, 5], '2': [2, 4, 6] }, firingOrder: [1, 2, 3, 4, 5, 6],
   fuel: 'petrol', induction: 'natural',
 };
 

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { DEFAULT_STRENGTH, learnFromCases, priorsFor, startWalk, type CausePrior, type ConfirmedCase } from '../../../shared/walk';
+import { caseWeight, DEFAULT_STRENGTH, learnFromCases, PRECEDENT_COUNT, priorsFor, SHARPNESS, startWalk, type CausePrior, type ConfirmedCase } from '../../../shared/walk';
 import { evidence, loadTree } from './helpers';
 
 const misfire = loadTree('misfire');
@@ -23,18 +23,25 @@ describe('learnFromCases', () => {
     expect(learned.reduce((s, p) => s + p.probability, 0)).toBeCloseTo(1, 12);
   });
 
-  it('follows the documented Dirichlet mean (a p + n) / (a + N)', () => {
+  it('follows the documented Dirichlet mean (a p + n) / (a + N), each case counting PRECEDENT_COUNT x s^SHARPNESS', () => {
     const learned = learnFromCases(base, [camCase(1, 0.8), { ...camCase(2, 0.5), cause: 'misfire/coil' }]);
     const a = DEFAULT_STRENGTH;
-    expect(pOf(learned, 'cam-timing')).toBeCloseTo((a * pOf(base, 'cam-timing') + 0.8) / (a + 1.3), 12);
-    expect(pOf(learned, 'coil')).toBeCloseTo((a * pOf(base, 'coil') + 0.5) / (a + 1.3), 12);
+    const [n1, n2] = [PRECEDENT_COUNT * 0.8 ** SHARPNESS, PRECEDENT_COUNT * 0.5 ** SHARPNESS];
+    expect(pOf(learned, 'cam-timing')).toBeCloseTo((a * pOf(base, 'cam-timing') + n1) / (a + n1 + n2), 12);
+    expect(pOf(learned, 'coil')).toBeCloseTo((a * pOf(base, 'coil') + n2) / (a + n1 + n2), 12);
   });
 
-  it('keeps one case from dominating: the rise is bounded and the likelier cause stays ahead', () => {
-    const learned = learnFromCases(base, [camCase('only')]);
-    const rise = pOf(learned, 'cam-timing') - pOf(base, 'cam-timing');
-    expect(rise).toBeLessThanOrEqual(1 / (DEFAULT_STRENGTH + 1) + 1e-12);
-    expect(pOf(learned, 'cam-timing')).toBeLessThan(pOf(learned, 'coil'));
+  it('counts similarity sharply: a near-exact precedent moves a cause far more than a same-family case', () => {
+    const exact = pOf(learnFromCases(base, [camCase('exact', 1)]), 'cam-timing') - pOf(base, 'cam-timing');
+    const family = pOf(learnFromCases(base, [camCase('family', 0.45)]), 'cam-timing') - pOf(base, 'cam-timing');
+    expect(caseWeight(1) / caseWeight(0.45)).toBeGreaterThan(20);
+    expect(exact).toBeGreaterThan(8 * family);
+    // the shop's exact precedent takes the lead over the tree's favourite...
+    const precedent = learnFromCases(base, [camCase('exact', 1)]);
+    expect(pOf(precedent, 'cam-timing')).toBeGreaterThan(pOf(precedent, 'coil'));
+    // ...a loosely related case does not
+    const loose = learnFromCases(base, [camCase('loose', 0.45)]);
+    expect(pOf(loose, 'cam-timing')).toBeLessThan(pOf(loose, 'coil'));
   });
 
   it('lets many confirmed fixes of the same cause take the lead', () => {

@@ -1,0 +1,1 @@
+ALTER TABLE `cases` ADD `cause_linked_by` enum('author','suggestion');
