@@ -7,6 +7,7 @@ import type { CauseOption, CauseSuggestionView } from '../../shared/schemas/case
 import type { System } from '../../shared/walk/tree-schema';
 import { useTheme } from '../theme/use-theme';
 import { Button } from '../ui/button';
+import { Icon } from '../ui/icon';
 import { Row } from '../ui/surfaces';
 import { Text } from '../ui/text';
 import { TextField } from '../ui/text-field';
@@ -35,10 +36,12 @@ export function CauseRow({ option, selected, score, onPress }: { option: CauseOp
         backgroundColor: selected ? t.colour.sand : t.colour.card,
       }}
     >
-      <Text weight={selected ? 'semibold' : 'regular'}>
-        {selected ? '✓ ' : ''}
-        {option.title}
-      </Text>
+      <Row style={{ gap: t.space.xs }}>
+        {selected ? <Icon name="check" size={14} tone="tide" /> : null}
+        <Text weight={selected ? 'semibold' : 'regular'} style={{ flexShrink: 1 }}>
+          {option.title}
+        </Text>
+      </Row>
       <Text variant="caption" tone="slate">
         {option.treeTitle} · {systemLabel(option.system)}
         {score !== undefined ? ` · ${Math.round(score * 100)} % match` : ''}
