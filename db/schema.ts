@@ -32,6 +32,10 @@ export const shops = mysqlTable('shops', {
   comebackKm: int('comeback_km').notNull().default(3000),
   /** id of a rule set in shared/readiness/verdict.ts */
   readinessRule: varchar('readiness_rule', { length: 32 }).notNull().default('us-common'),
+  /** ISO 3166-1 alpha-2; null until the manager sets it. */
+  country: varchar('country', { length: 2 }),
+  /** IANA zone: "today", the digest week and dates on screen follow it. */
+  timeZone: varchar('time_zone', { length: 64 }).notNull().default('UTC'),
   createdAt: createdAt(),
 });
 

@@ -22,6 +22,7 @@ import { rejectMalformedPath, repairingReviver } from './http/text-edge';
 import { patternRoutes } from './patterns/routes';
 import { vehicleRoutes } from './vehicles/routes';
 import { homeRoutes } from './home/routes';
+import { shopRoutes } from './shop/routes';
 import { userRoutes } from './users/routes';
 import { searchRoutes } from './search/routes';
 import { stopSearch } from './search/client';
@@ -81,6 +82,7 @@ export function apiRouters(ctx: AppContext) {
     patternRoutes(ctx),
     vehicleRoutes(ctx),
     homeRoutes(ctx),
+    shopRoutes(ctx),
   ];
 }
 

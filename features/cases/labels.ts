@@ -11,17 +11,8 @@ export const statusLabel: Record<CaseStatus, { label: string; symbol: IconName; 
 
 export const platformName = (p: { make: string; model: string; engine: string } | null) => (p ? `${p.make} ${p.model} · ${p.engine}` : 'No platform');
 
-export function shortDate(iso: string): string {
-  const d = new Date(iso);
-  if (Number.isNaN(d.getTime())) return iso;
-  return d.toLocaleDateString(undefined, { day: 'numeric', month: 'short', year: 'numeric' });
-}
-
-export function dateTime(iso: string): string {
-  const d = new Date(iso);
-  if (Number.isNaN(d.getTime())) return iso;
-  return d.toLocaleString(undefined, { day: 'numeric', month: 'short', year: 'numeric', hour: '2-digit', minute: '2-digit' });
-}
+// Dates read in the shop's time zone (features/shell/shop-clock.ts).
+export { dateTime, shortDate } from '../shell/shop-clock';
 
 export function fileSize(bytes: number): string {
   if (bytes < 1024) return `${bytes} B`;

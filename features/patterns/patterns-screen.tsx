@@ -5,7 +5,8 @@ import { useState, type ReactNode } from 'react';
 import { View } from 'react-native';
 import { z } from 'zod';
 import { allows } from '../../shared/policy';
-import { dayOf, defaultPeriod } from '../../shared/patterns';
+import { defaultPeriod } from '../../shared/patterns';
+import { shopToday } from '../shell/shop-clock';
 import type { CsvTable, PatternsResponse } from '../../shared/schemas/patterns';
 import { ApiError } from '../api/client';
 import { useSession } from '../auth/use-session';
@@ -38,7 +39,7 @@ const engineOf = (label: string) => label.split(' ').at(-1) ?? label;
 
 /** The period being chosen: a preset, or custom dates checked before they apply. Kept by the screen so the sheet can close. */
 function usePeriodChoice() {
-  const today = dayOf(new Date());
+  const today = shopToday();
   const [period, setPeriod] = useState(() => defaultPeriod(today));
   const [preset, setPreset] = useState<Preset>('90');
   const [from, setFrom] = useState(defaultPeriod(today).from);

@@ -25,6 +25,7 @@ export const NAV_ITEMS: NavItem[] = [
   { href: '/patterns', match: '/patterns', label: 'Patterns', symbol: 'patterns', permission: 'patterns.read', primary: false },
   { href: '/vehicles', match: '/vehicles', label: 'Vehicles', symbol: 'vehicle', permission: 'cases.read', primary: false },
   { href: '/team', match: '/team', label: 'Team', symbol: 'team', permission: 'users.manage', primary: false },
+  { href: '/settings', match: '/settings', label: 'Shop settings', symbol: 'shop', permission: 'shop.settings', primary: false },
   { href: '/outbox', match: '/outbox', label: 'Outbox', symbol: 'mail', permission: 'outbox.read', primary: false },
   { href: '/account', match: '/account', label: 'Account', symbol: 'account', permission: 'auth.self', primary: true },
 ];

@@ -17,6 +17,7 @@ export const ICONS = {
   team: 'users',
   mail: 'mail',
   account: 'user',
+  shop: 'briefcase',
   add: 'plus',
   edit: 'edit-2',
   check: 'check',

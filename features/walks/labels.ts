@@ -25,7 +25,4 @@ export const minutes = (m: number) => `${m < 10 ? m.toFixed(1).replace(/\.0$/, '
 /** 'after-timing-work' -> 'after timing work'. */
 export const tagWords = (tag: string) => tag.replace(/-/g, ' ');
 
-export function shortDate(iso: string): string {
-  const d = new Date(iso);
-  return Number.isNaN(d.getTime()) ? '' : d.toLocaleDateString(undefined, { day: 'numeric', month: 'short', year: 'numeric' });
-}
+export { shortDate } from '../shell/shop-clock';

@@ -31,6 +31,8 @@ export async function loadSessionUser(db: Db, userId: number): Promise<(SessionU
       role: users.role,
       shopId: users.shopId,
       shopName: shops.name,
+      shopCountry: shops.country,
+      shopTimeZone: shops.timeZone,
       disabled: users.disabled,
       passwordChangedAt: users.passwordChangedAt,
     })
@@ -40,13 +42,15 @@ export async function loadSessionUser(db: Db, userId: number): Promise<(SessionU
   return row ?? null;
 }
 
-export const toSessionUser = ({ id, name, email, role, shopId, shopName }: SessionUser): SessionUser => ({
+export const toSessionUser = ({ id, name, email, role, shopId, shopName, shopCountry, shopTimeZone }: SessionUser): SessionUser => ({
   id,
   name,
   email,
   role,
   shopId,
   shopName,
+  shopCountry,
+  shopTimeZone,
 });
 
 /**

@@ -8,4 +8,6 @@ export interface SessionUser {
   role: Role;
   shopId: number;
   shopName: string;
+  shopCountry: string | null;
+  shopTimeZone: string;
 }

@@ -118,3 +118,8 @@ async function cachedSessionUser(ctx: AppContext, id: number): Promise<SessionUs
 
 /** Drops a user from this instance's cache after a change to their account. */
 export const forgetSessionUser = (id: number) => userCache.delete(id);
+
+/** Drops every cached user of a shop after its settings change (other instances catch up within USER_CACHE_MS). */
+export function forgetShopUsers(shopId: number) {
+  for (const [id, hit] of userCache) if (hit.user?.shopId === shopId) userCache.delete(id);
+}

@@ -3,7 +3,8 @@
 import { Cron } from 'croner';
 import { and, count, desc, eq, isNull, sql } from 'drizzle-orm';
 import { caseComments, cases, digestRuns, users, walks } from '../../db/schema';
-import { addDays, computeFigures, dayOf } from '../../shared/patterns';
+import { addDays, computeFigures } from '../../shared/patterns';
+import { dayIn } from '../../shared/shop-time';
 import { isSeniorOrAbove } from '../../shared/policy';
 import { HOME_LIST_LIMIT, type HomeResponse } from '../../shared/schemas/home';
 import type { SessionUser } from '../auth/session-user';
@@ -68,8 +69,8 @@ async function returnNotes(ctx: AppContext, caseIds: number[]) {
   return notes;
 }
 
-async function thisWeeksComebacks(ctx: AppContext, shopId: number, now: Date): Promise<NonNullable<HomeResponse['comebacks']>> {
-  const to = dayOf(now);
+async function thisWeeksComebacks(ctx: AppContext, shopId: number, zone: string, now: Date): Promise<NonNullable<HomeResponse['comebacks']>> {
+  const to = dayIn(zone, now);
   const from = addDays(to, -6);
   const [all, window] = await Promise.all([loadPatternCases(ctx, shopId), shopWindow(ctx, shopId)]);
   const { comebacks } = computeFigures(all, window, { from, to, platformId: null });
@@ -94,7 +95,7 @@ export async function homeFor(ctx: AppContext, actor: SessionUser, now = new Dat
     openWalksOf(ctx, actor),
     draftsOf(ctx, actor),
     senior ? waitingForReview(ctx, actor.shopId).then(capped) : null,
-    manager ? thisWeeksComebacks(ctx, actor.shopId, now) : null,
+    manager ? thisWeeksComebacks(ctx, actor.shopId, actor.shopTimeZone, now) : null,
     manager ? digestStatus(ctx, actor.shopId, now) : null,
   ]);
   return { openWalks, ...drafts, review, comebacks, digest };

@@ -9,6 +9,8 @@ import { isDuplicate } from '../auth/service';
 import type { AppContext } from '../context';
 import type { OutgoingMail } from '../mail/mailer';
 import { getPatterns } from './service';
+import { dayIn } from '../../shared/shop-time';
+import { shopTimeZone } from '../shop/service';
 
 const percent = (r: number | null) => (r === null ? 'no cases yet' : `${Math.round(r * 100)} %`);
 
@@ -117,7 +119,7 @@ export async function sendDigest(ctx: AppContext, shopId: number, opts: { kind: 
   const recipients = await managersOf(ctx, shopId);
   if (!(await claimRun(ctx, shopId, opts.kind, opts.periodKey, recipients.length))) return { sent: 0, skipped: true };
   if (recipients.length === 0) return { sent: 0, skipped: false };
-  const content = await digestContent(ctx, shopId, dayOf(opts.now ?? new Date()));
+  const content = await digestContent(ctx, shopId, dayIn(await shopTimeZone(ctx, shopId), opts.now ?? new Date()));
   let sent = 0;
   for (const to of recipients) {
     // One message per manager, so nobody sees the others' addresses; a failure is logged, not thrown.

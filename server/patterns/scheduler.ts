@@ -2,16 +2,17 @@
 // Every instance runs it; digest_runs makes sure each shop gets one digest per week.
 import { Cron } from 'croner';
 import { shops } from '../../db/schema';
-import { dayOf, isoWeekKey } from '../../shared/patterns';
+import { isoWeekKey } from '../../shared/patterns';
+import { dayIn } from '../../shared/shop-time';
 import type { AppContext } from '../context';
 import { sendDigest } from './digest';
 
-/** One scheduled round over every shop; the period is the ISO week of `now` (e.g. 2026-W49). */
+/** One scheduled round over every shop; the period is the ISO week (e.g. 2026-W49) of the shop's own day at `now`. */
 export async function runScheduledDigests(ctx: AppContext, now = new Date()): Promise<{ shopId: number; sent: number; skipped: boolean }[]> {
-  const periodKey = isoWeekKey(dayOf(now));
-  const all = await ctx.db.select({ id: shops.id }).from(shops);
+  const all = await ctx.db.select({ id: shops.id, timeZone: shops.timeZone }).from(shops);
   const results = [];
   for (const shop of all) {
+    const periodKey = isoWeekKey(dayIn(shop.timeZone, now));
     try {
       results.push({ shopId: shop.id, ...(await sendDigest(ctx, shop.id, { kind: 'scheduled', periodKey, now })) });
     } catch (err) {

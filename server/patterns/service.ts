@@ -6,6 +6,8 @@ import { computeFigures, dayOf, daysBetween, defaultPeriod, DEFAULT_WINDOW, repe
 import { MAX_PERIOD_DAYS, type PatternsQuery, type PatternsResponse } from '../../shared/schemas/patterns';
 import type { AppContext } from '../context';
 import { badRequest } from '../http/errors';
+import { dayIn } from '../../shared/shop-time';
+import { shopTimeZone } from '../shop/service';
 
 const DAY = /^\d{4}-\d{2}-\d{2}$/;
 
@@ -105,7 +107,8 @@ export function resolvePeriod(q: PatternsQuery, today = dayOf(new Date())): Reso
 }
 
 export async function getPatterns(ctx: AppContext, shopId: number, q: PatternsQuery, today?: string): Promise<PatternsResponse> {
-  const period = resolvePeriod(q, today);
+  // "Today" is the shop's day, not the server's: a period ending today must include this evening's cases.
+  const period = resolvePeriod(q, today ?? dayIn(await shopTimeZone(ctx, shopId)));
   const [all, window, labels, waiting] = await Promise.all([
     loadPatternCases(ctx, shopId),
     shopWindow(ctx, shopId),

@@ -40,6 +40,8 @@ export const userSchema = z.object({
   role: roleSchema,
   shopId: z.number(),
   shopName: z.string(),
+  shopCountry: z.string().nullable(),
+  shopTimeZone: z.string(),
 });
 export type UserView = z.infer<typeof userSchema>;
 

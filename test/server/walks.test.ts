@@ -182,7 +182,7 @@ describe('marking steps', () => {
 
   it('keeps both marks when two devices mark at the same moment', async () => {
     const w = await start(apprentice, misfireV6());
-    const actor: SessionUser = { id: shop.people.apprentice.id, name: 'A', email: shop.people.apprentice.email, role: 'apprentice', shopId: shop.shopId, shopName: 'x' };
+    const actor: SessionUser = { id: shop.people.apprentice.id, name: 'A', email: shop.people.apprentice.email, role: 'apprentice', shopId: shop.shopId, shopName: 'x', shopCountry: null, shopTimeZone: 'UTC' };
     const ids = w.steps.slice(0, 4).map((s) => s.id);
     await Promise.all(ids.map((id) => markWalkStep(t.ctx, actor, w.id, id, { state: 'tested', outcome: 'no_fault' })));
     const res = await apprentice.agent.get(`/api/walks/${w.id}`);

@@ -1,0 +1,1 @@
+export { ShopSettingsScreen as default } from '@/features/shop/settings-screen';
