@@ -5,6 +5,7 @@ import { parse } from 'yaml';
 import { z } from 'zod';
 import { roleSchema } from '../../shared/schemas/auth';
 import { bankFiringWarnings, platformInputSchema } from '../../shared/platform';
+import { isTimeZone } from '../../shared/shop-time';
 
 export const DEMO_PASSWORD = 'causeway-demo-2026';
 
@@ -14,6 +15,8 @@ const shopFileSchema = z.object({
     name: z.string(),
     comebackDays: z.number().int().positive().default(90),
     comebackKm: z.number().int().positive().default(3000),
+    country: z.string().regex(/^[A-Z]{2}$/).nullable().default(null),
+    timeZone: z.string().refine(isTimeZone, 'timeZone must be an IANA zone name').default('UTC'),
   }).loose(),
   users: z.array(z.object({ key: z.string(), name: z.string(), email: z.string(), role: roleSchema })).min(4),
 });

@@ -25,7 +25,7 @@ export async function loadDemoData(db: Db, root: string, extra?: (tx: Db, shopId
   const shopId = await db.transaction(async (tx) => {
     const [shop] = await tx
       .insert(shops)
-      .values({ name: demo.shop.name, comebackDays: demo.shop.comebackDays, comebackKm: demo.shop.comebackKm })
+      .values({ name: demo.shop.name, comebackDays: demo.shop.comebackDays, comebackKm: demo.shop.comebackKm, country: demo.shop.country, timeZone: demo.shop.timeZone })
       .$returningId();
     const userIds = new Map<string, number>();
     for (const u of demo.users) {

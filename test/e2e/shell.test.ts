@@ -47,6 +47,10 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('signed-in shell at %s s
         await page.getByText('Invite someone').waitFor();
         await page.getByText(person('apprentice').email).waitFor();
         await screenshot(page, `team-${viewport}`);
+        await page.goto('/settings');
+        await page.getByRole('heading', { name: 'Shop settings' }).waitFor();
+        await page.getByText(/Today in the shop: .*Europe\/London.*United Kingdom/).waitFor();
+        await screenshot(page, `settings-${viewport}`);
         await page.goto('/outbox');
         await page.getByRole('heading', { name: 'Outbox' }).waitFor();
         await screenshot(page, `outbox-${viewport}`);
