@@ -24,7 +24,7 @@ async function startDemoMisfire(page: Page) {
 /** "Seen before on this engine" with demo case 0050, the cause it found, and a link to the case. */
 async function expectPrecedent(page: Page) {
   await page.getByText('Seen before on this engine').waitFor();
-  const link = page.getByRole('link', { name: 'VT27 misfire cyl 2 and 5 after timing belt job', exact: true });
+  const link = page.getByRole('link', { name: 'VT27 misfire cyl 2 and 5 after timing belt job', exact: true }).first();
   await link.waitFor();
   expect(await link.getAttribute('href')).toMatch(/^\/cases\/\d+$/);
   await page.getByText('Found: Coil connector or ignition harness fault').waitFor();
